@@ -1,0 +1,10 @@
+import type { Role } from "@/db/models/user";
+import type { NavItem } from "@/components/site-header";
+
+/** The clinic sections each staff role sees in the header. */
+export function clinicNav(role: Role): NavItem[] {
+  const items: (NavItem & { roles: Role[] })[] = [
+    { href: "/clinic", label: "Today", roles: ["reception", "dentist", "admin"] },
+  ];
+  return items.filter((i) => i.roles.includes(role)).map(({ href, label }) => ({ href, label }));
+}

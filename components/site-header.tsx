@@ -1,0 +1,38 @@
+import Link from "next/link";
+import type { SessionUser } from "@/lib/auth/session";
+import { Brand } from "./brand";
+import { SignOutButton } from "./sign-out-button";
+
+const ROLE_LABEL = { patient: "Patient", reception: "Reception", dentist: "Dentist", admin: "Clinic manager" } as const;
+
+export type NavItem = { href: string; label: string };
+
+export function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: NavItem[] }) {
+  return (
+    <header className="border-b border-line bg-white">
+      <div className="mx-auto flex max-w-page flex-wrap items-center justify-between gap-3 px-gutter py-3">
+        <Brand href={user.role === "patient" ? "/patient" : "/clinic"} />
+        <div className="flex items-center gap-3">
+          <p className="text-right text-sm leading-tight">
+            <span className="block font-semibold" data-testid="signed-in-name">{user.name ?? user.email}</span>
+            <span className="text-ink-muted">{ROLE_LABEL[user.role]}</span>
+          </p>
+          <SignOutButton />
+        </div>
+      </div>
+      {nav.length > 0 ? (
+        <nav aria-label="Sections" className="mx-auto max-w-page overflow-x-auto px-gutter">
+          <ul className="flex gap-1 pb-2">
+            {nav.map((item) => (
+              <li key={item.href}>
+                <Link href={item.href} className="inline-block min-h-10 rounded-md px-3 py-2 text-sm font-semibold text-ink-soft no-underline hover:bg-paper-deep hover:no-underline">
+                  {item.label}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </nav>
+      ) : null}
+    </header>
+  );
+}

@@ -1,0 +1,40 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import { sequelize } from "../sequelize";
+
+/** Per-clinic booking and reminder settings; defaults live in lib/domain/clinic-settings.ts. */
+export type ClinicSettingsJson = Partial<{
+  slotMinutes: number;
+  bufferMinutes: number;
+  minNoticeMinutes: number;
+  cancelCutoffHours: number;
+  reminderHoursBefore: number[];
+}>;
+
+export class Clinic extends Model<InferAttributes<Clinic>, InferCreationAttributes<Clinic>> {
+  declare id: CreationOptional<string>;
+  declare name: string;
+  declare slug: string;
+  declare timeZone: string;
+  declare address: string;
+  declare phone: string | null;
+  declare currency: CreationOptional<string>;
+  declare settings: CreationOptional<ClinicSettingsJson>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+Clinic.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    name: { type: DataTypes.TEXT, allowNull: false },
+    slug: { type: DataTypes.TEXT, allowNull: false, unique: true },
+    timeZone: { type: DataTypes.TEXT, allowNull: false },
+    address: { type: DataTypes.TEXT, allowNull: false },
+    phone: DataTypes.TEXT,
+    currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: "CAD" },
+    settings: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "clinics", modelName: "clinic" },
+);

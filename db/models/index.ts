@@ -1,0 +1,59 @@
+// All models and their associations; import models from here so associations are always set up.
+import { sequelize } from "../sequelize";
+import { AuditEvent } from "./audit-event";
+import { Appointment, AppointmentStage, Reservation } from "./appointment";
+import { Clinic } from "./clinic";
+import { ClosedDay, OpeningHour } from "./clinic-hours";
+import { Equipment, EquipmentOutage } from "./equipment";
+import { Material, MaterialMode, StageDuration } from "./material";
+import { Patient } from "./patient";
+import { Proposal, ProposalMaterial } from "./proposal";
+import { SignInAttempt } from "./sign-in-attempt";
+import { User } from "./user";
+
+declare global {
+  var __cuspalAssociated: boolean | undefined;
+}
+
+if (!globalThis.__cuspalAssociated) {
+  globalThis.__cuspalAssociated = true;
+
+  // A bulk update or destroy without a where clause would touch every row: refuse it.
+  const guard = (options: { where?: unknown }) => {
+    const where = options.where as Record<string | symbol, unknown> | undefined;
+    if (!where || (Object.keys(where).length === 0 && Object.getOwnPropertySymbols(where).length === 0)) {
+      throw new Error("Refusing a bulk update or destroy without a where clause.");
+    }
+  };
+  sequelize.addHook("beforeBulkUpdate", guard);
+  sequelize.addHook("beforeBulkDestroy", guard);
+
+  User.belongsTo(Clinic, { foreignKey: "clinicId" });
+  Patient.belongsTo(User, { foreignKey: "userId", as: "user" });
+  Patient.belongsTo(Clinic, { foreignKey: "clinicId" });
+  User.hasOne(Patient, { foreignKey: "userId", as: "patient" });
+
+  Material.hasMany(MaterialMode, { foreignKey: "materialId", as: "modes" });
+  MaterialMode.belongsTo(Material, { foreignKey: "materialId" });
+
+  Proposal.hasMany(ProposalMaterial, { foreignKey: "proposalId", as: "options" });
+  ProposalMaterial.belongsTo(Material, { foreignKey: "materialId", as: "material" });
+  Proposal.belongsTo(Patient, { foreignKey: "patientId", as: "patient" });
+  Proposal.belongsTo(User, { foreignKey: "dentistId", as: "dentist" });
+
+  Appointment.belongsTo(Proposal, { foreignKey: "proposalId", as: "proposal" });
+  Appointment.belongsTo(Patient, { foreignKey: "patientId", as: "patient" });
+  Appointment.belongsTo(Material, { foreignKey: "materialId", as: "material" });
+  Appointment.belongsTo(User, { foreignKey: "dentistId", as: "dentist" });
+  Appointment.hasMany(AppointmentStage, { foreignKey: "appointmentId", as: "stages" });
+  Appointment.hasMany(Reservation, { foreignKey: "appointmentId", as: "reservations" });
+  Proposal.hasMany(Appointment, { foreignKey: "proposalId", as: "appointments" });
+
+  Equipment.hasMany(EquipmentOutage, { foreignKey: "equipmentId", as: "outages" });
+}
+
+export {
+  sequelize, Appointment, AppointmentStage, AuditEvent, Clinic, ClosedDay, Equipment, EquipmentOutage,
+  Material, MaterialMode, OpeningHour, Patient, Proposal, ProposalMaterial, Reservation, SignInAttempt,
+  StageDuration, User,
+};

@@ -1,0 +1,94 @@
+// The invented demo clinic: Alder Bay Dental Studio in the invented harbour town of Alder Bay.
+// All people are invented. Password for every demo account: cuspal-demo.
+import type { Transaction } from "sequelize";
+import {
+  Clinic, ClosedDay, Equipment, Material, MaterialMode, OpeningHour, Patient, StageDuration, User,
+} from "@/db/models";
+import { hashPassword } from "@/lib/auth/password";
+import { CATALOGUE, DEFAULT_STAGE_MINUTES } from "./catalogue";
+
+export const DEMO_PASSWORD = "cuspal-demo";
+
+export const DEMO_PEOPLE = [
+  { email: "patient@cuspal.test", name: "Zoë Halvorsen-Ruiz", role: "patient" },
+  { email: "reception@cuspal.test", name: "Oskar Feldmann-Price", role: "reception" },
+  { email: "dentist@cuspal.test", name: "Dr Amara Quist", role: "dentist" },
+  { email: "admin@cuspal.test", name: "Lena Brightwater", role: "admin" },
+] as const;
+
+/** Other invented patients, so the clinic's day is not empty. */
+export const OTHER_PATIENTS = [
+  { email: "tobias.renfrew@cuspal.test", name: "Tobias Renfrew", dateOfBirth: "1971-06-02" },
+  { email: "marisol.akande@cuspal.test", name: "Marisol Akande", dateOfBirth: "1988-11-19" },
+  { email: "henrik.oyelaran@cuspal.test", name: "Henrik Oyelaran", dateOfBirth: "1959-02-27" },
+];
+
+export async function seedClinic(transaction: Transaction) {
+  const clinic = await Clinic.create(
+    {
+      name: "Alder Bay Dental Studio",
+      slug: "alder-bay",
+      timeZone: "America/Toronto",
+      address: "14 Quayside Row, Alder Bay",
+      phone: "+1 555 0134",
+      currency: "CAD",
+      settings: { slotMinutes: 15, bufferMinutes: 10, minNoticeMinutes: 120, cancelCutoffHours: 24, reminderHoursBefore: [48, 2] },
+    },
+    { transaction },
+  );
+
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const users: Record<string, User> = {};
+  for (const person of DEMO_PEOPLE) {
+    users[person.role] = await User.create(
+      { email: person.email, name: person.name, role: person.role, clinicId: clinic.id, passwordHash, emailVerified: null },
+      { transaction },
+    );
+  }
+  const patient = await Patient.create(
+    { userId: users.patient.id, clinicId: clinic.id, dateOfBirth: "1984-03-17", phone: "+1 555 0178" },
+    { transaction },
+  );
+  const others: Patient[] = [];
+  for (const p of OTHER_PATIENTS) {
+    const u = await User.create({ email: p.email, name: p.name, role: "patient", clinicId: clinic.id, passwordHash, emailVerified: null }, { transaction });
+    others.push(await Patient.create({ userId: u.id, clinicId: clinic.id, dateOfBirth: p.dateOfBirth, phone: null }, { transaction }));
+  }
+
+  // Monday–Friday with a lunch break, Saturday morning, Sunday closed.
+  const hours = [1, 2, 3, 4, 5].flatMap((weekday) => [
+    { clinicId: clinic.id, weekday, opens: "08:00", closes: "12:30" },
+    { clinicId: clinic.id, weekday, opens: "13:30", closes: "18:00" },
+  ]);
+  hours.push({ clinicId: clinic.id, weekday: 6, opens: "09:00", closes: "13:00" });
+  await OpeningHour.bulkCreate(hours, { transaction });
+  await ClosedDay.bulkCreate([{ clinicId: clinic.id, day: "2026-12-25", reason: "Winter holiday" }, { clinicId: clinic.id, day: "2026-12-26", reason: "Winter holiday" }], { transaction });
+
+  const equipment = await Equipment.bulkCreate(
+    [
+      { clinicId: clinic.id, kind: "chair", name: "Chair 1 — Harbour room" },
+      { clinicId: clinic.id, kind: "chair", name: "Chair 2 — Lighthouse room" },
+      { clinicId: clinic.id, kind: "chair", name: "Chair 3 — Dune room" },
+      { clinicId: clinic.id, kind: "mill", name: "Mill A" },
+      { clinicId: clinic.id, kind: "mill", name: "Mill B" },
+      { clinicId: clinic.id, kind: "furnace", name: "Furnace 1" },
+    ],
+    { transaction, returning: true },
+  );
+
+  await seedCatalogue(clinic.id, transaction);
+  return { clinic, users, patient, others, equipment };
+}
+
+/** Copies the default catalogue and stage minutes into a clinic. */
+export async function seedCatalogue(clinicId: string, transaction?: Transaction) {
+  for (const [i, item] of CATALOGUE.entries()) {
+    const { modes, ...fields } = item;
+    const material = await Material.create({ ...fields, clinicId, sortOrder: i }, { transaction });
+    await MaterialMode.bulkCreate(modes.map((m) => ({ ...m, materialId: material.id })), { transaction });
+  }
+  await StageDuration.bulkCreate(
+    DEFAULT_STAGE_MINUTES.map((s) => ({ clinicId, stage: s.stage, toothClass: s.toothClass ?? null, minutes: s.minutes })),
+    { transaction },
+  );
+}

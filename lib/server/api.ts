@@ -1,0 +1,47 @@
+// Route handler plumbing: every error becomes JSON `{ error, field? }` with the right status.
+import "server-only";
+import { NextResponse, type NextRequest } from "next/server";
+import { ZodError, type ZodType } from "zod";
+import { AppError, badRequest } from "./errors";
+
+type Handler<C> = (req: NextRequest, ctx: C) => Promise<Response>;
+
+export function errorResponse(err: unknown): NextResponse {
+  if (err instanceof AppError) {
+    return NextResponse.json({ error: err.message, ...(err.field ? { field: err.field } : {}), ...err.options.extra }, { status: err.status });
+  }
+  if (err instanceof ZodError) {
+    const issue = err.issues[0];
+    const field = issue?.path.join(".") || undefined;
+    return NextResponse.json({ error: issue?.message ?? "The request is not valid.", ...(field ? { field } : {}) }, { status: 400 });
+  }
+  // Log the error itself (ids and messages, never request bodies with personal data).
+  console.error("Unhandled error in route handler:", err instanceof Error ? err.stack : err);
+  return NextResponse.json({ error: "Something went wrong on our side. Please try again." }, { status: 500 });
+}
+
+export function route<C = unknown>(handler: Handler<C>): Handler<C> {
+  return async (req, ctx) => {
+    try {
+      return await handler(req, ctx);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+}
+
+/** Parses a JSON body against a schema; malformed JSON and wrong shapes are 400s, not 500s. */
+export async function readJson<T>(req: Request, schema: ZodType<T>): Promise<T> {
+  let body: unknown;
+  try {
+    body = await req.json();
+  } catch {
+    throw badRequest("The request body must be valid JSON.");
+  }
+  return schema.parse(body);
+}
+
+export function clientInfo(req: Request): { ip: string; userAgent: string } {
+  const forwarded = req.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
+  return { ip: forwarded || req.headers.get("x-real-ip") || "unknown", userAgent: req.headers.get("user-agent") ?? "unknown" };
+}

@@ -1,0 +1,46 @@
+// `npm run demo`: everything a fresh machine needs to show Cuspal with its invented demo clinic.
+import { spawn } from "node:child_process";
+import {
+  appEnv, bin, ensureDatabases, ensureDependencies, ensurePostgres, mustRun, root, say,
+  startMailCatcher, startService, startStorage,
+} from "./lib.mjs";
+
+const appPort = Number(process.env.PORT ?? 3000);
+const ports = { db: "cuspal", appPort, smtpPort: 1025, mailWebPort: 1080, s3Port: 4569 };
+
+ensureDependencies();
+await ensurePostgres();
+await ensureDatabases(["cuspal", "cuspal_test"]);
+const env = { ...process.env, ...appEnv(ports) };
+
+say("Migrating the database…");
+mustRun(bin("tsx"), ["db/migrate.ts", "up"], { env });
+say("Loading the demo clinic (kept if already there)…");
+mustRun(bin("tsx"), ["db/seed.ts"], { env });
+
+await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort });
+await startStorage({ port: ports.s3Port });
+await startService("worker", bin("tsx"), ["lib/jobs/worker-main.ts"], { env });
+
+say("Building the app…");
+mustRun(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } });
+
+console.log(`
+Cuspal is starting on http://localhost:${appPort}
+  mail catcher     http://127.0.0.1:${ports.mailWebPort}
+  storage fake     http://127.0.0.1:${ports.s3Port}
+
+Demo accounts (invented people), password: cuspal-demo
+  patient@cuspal.test     patient (open crown proposal)
+  reception@cuspal.test   reception
+  dentist@cuspal.test     dentist
+  admin@cuspal.test       clinic manager
+
+Stop the app with Ctrl-C, then \`npm run stop\` stops PostgreSQL, the mail catcher, the storage fake and the worker.
+`);
+
+const app = spawn(bin("next"), ["start", "-p", String(appPort), "-H", "0.0.0.0"], { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "inherit" });
+const forward = (sig) => () => app.kill(sig);
+process.on("SIGINT", forward("SIGINT"));
+process.on("SIGTERM", forward("SIGTERM"));
+app.on("exit", (code) => process.exit(code ?? 0));

@@ -1,0 +1,5 @@
+// Stops everything `npm run demo` started: the worker, the mail catcher, the storage fake and PostgreSQL.
+import { stopPostgres, stopService } from "./lib.mjs";
+
+for (const name of ["app", "worker", "mail-catcher", "storage"]) stopService(name);
+stopPostgres();

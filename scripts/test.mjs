@@ -1,0 +1,80 @@
+// `npm test`: the same set-up as the demo on the test database and test ports, then every
+// runner (Vitest: unit + integration; Playwright: browser), ending with one totals line.
+// `npm test -- unit [vitest args]` or `npm test -- e2e [playwright args]` runs one runner.
+import { existsSync, readFileSync, rmSync, mkdirSync } from "node:fs";
+import path from "node:path";
+import {
+  appEnv, bin, dataDir, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, mustRun,
+  run, say, startMailCatcher, startStorage, stopPostgres, stopService,
+} from "./lib.mjs";
+
+const [only, ...extra] = process.argv.slice(2);
+const wantUnit = !only || only === "unit";
+const wantE2e = !only || only === "e2e";
+
+const ports = { db: "cuspal_test", appPort: 3100, smtpPort: 1125, mailWebPort: 1180, s3Port: 4579 };
+ensureDependencies();
+if (wantE2e) ensureChromium();
+const startedPg = await ensurePostgres();
+await ensureDatabases(["cuspal_test", "cuspal_test_migrations"], { fresh: ["cuspal_test", "cuspal_test_migrations"] });
+
+const env = {
+  ...process.env,
+  ...appEnv(ports),
+  MIGRATIONS_DATABASE_URL: process.env.MIGRATIONS_DATABASE_URL ?? appEnv(ports).DATABASE_URL.replace(/\/cuspal_test$/, "/cuspal_test_migrations"),
+  NEXT_DIST_DIR: ".next-test",
+  CUSPAL_TEST: "1",
+};
+const reportDir = path.join(dataDir, "reports");
+rmSync(reportDir, { recursive: true, force: true });
+mkdirSync(reportDir, { recursive: true });
+
+say("Migrating the test database…");
+mustRun(bin("tsx"), ["db/migrate.ts", "up"], { env });
+await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort, name: "test-mail-catcher" });
+await startStorage({ port: ports.s3Port, name: "test-storage" });
+
+const totals = { passed: 0, failed: 0, skipped: 0 };
+let broken = false;
+
+try {
+  if (wantUnit) {
+    say("Vitest: unit and integration tests…");
+    const json = path.join(reportDir, "vitest.json");
+    const status = run(bin("vitest"), ["run", "--reporter=default", "--reporter=json", `--outputFile=${json}`, ...(only ? extra : [])], { env });
+    if (existsSync(json)) {
+      const r = JSON.parse(readFileSync(json, "utf8"));
+      totals.passed += r.numPassedTests;
+      totals.failed += r.numFailedTests;
+      totals.skipped += r.numPendingTests + r.numTodoTests;
+      if (status !== 0 && r.numFailedTests === 0) (totals.failed += 1), (broken = true);
+    } else if (status !== 0) (totals.failed += 1), (broken = true);
+  }
+
+  if (wantE2e) {
+    say("Loading the demo clinic into the test database…");
+    mustRun(bin("tsx"), ["db/seed.ts", "--reset"], { env });
+    say("Building the app for the browser tests…");
+    mustRun(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } });
+    say("Playwright: browser tests…");
+    const json = path.join(reportDir, "playwright.json");
+    const status = run(bin("playwright"), ["test", ...(only ? extra : [])], {
+      env: { ...env, PLAYWRIGHT_JSON_OUTPUT_NAME: json },
+    });
+    if (existsSync(json)) {
+      const s = JSON.parse(readFileSync(json, "utf8")).stats;
+      totals.passed += s.expected + (s.flaky ?? 0);
+      totals.failed += s.unexpected;
+      totals.skipped += s.skipped;
+      if (status !== 0 && s.unexpected === 0) (totals.failed += 1), (broken = true);
+    } else if (status !== 0) (totals.failed += 1), (broken = true);
+  }
+} finally {
+  stopService("test-mail-catcher");
+  stopService("test-storage");
+  if (startedPg) stopPostgres();
+}
+
+if (broken) console.log("A runner failed outside its tests; see its output above.");
+console.log(`${totals.passed} passed, ${totals.failed} failed, ${totals.skipped} skipped`);
+process.exit(totals.failed > 0 ? 1 : 0);
