@@ -255,6 +255,7 @@ export function bin(name) {
 /** Environment shared by the app, the worker and the scripts for one set-up (demo or test). */
 export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port }) {
   return {
+    NEXT_TELEMETRY_DISABLED: "1",
     DATABASE_URL: process.env.DATABASE_URL ?? databaseUrl(db),
     NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? localSecret("auth"),
     NEXTAUTH_URL: process.env.NEXTAUTH_URL ?? `http://localhost:${appPort}`,

@@ -53,9 +53,11 @@ try {
 
   if (wantE2e) {
     say("Loading the demo clinic into the test database…");
-    mustRun(bin("tsx"), ["db/seed.ts", "--reset"], { env });
+    if (run(bin("tsx"), ["db/seed.ts", "--reset"], { env }) !== 0) throw new Error("Loading the demo clinic failed.");
     say("Building the app for the browser tests…");
-    mustRun(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } });
+    if (run(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } }) !== 0) {
+      throw new Error("next build failed; see its output above.");
+    }
     say("Playwright: browser tests…");
     const json = path.join(reportDir, "playwright.json");
     const status = run(bin("playwright"), ["test", ...(only ? extra : [])], {
@@ -69,6 +71,10 @@ try {
       if (status !== 0 && s.unexpected === 0) (totals.failed += 1), (broken = true);
     } else if (status !== 0) (totals.failed += 1), (broken = true);
   }
+} catch (err) {
+  console.error(err instanceof Error ? err.message : err);
+  totals.failed += 1;
+  broken = true;
 } finally {
   stopService("test-mail-catcher");
   stopService("test-storage");
