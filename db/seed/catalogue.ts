@@ -42,7 +42,7 @@ export const CATALOGUE: CatalogueMaterial[] = [
       // [P] speed sintering dwell: super-speed 10 min, speed 25 min (Kaizer et al. 2017); heating and cooling add to it.
       { mode: "rapid", fabricationMinutes: 5, heatTreatmentMinutes: 20, finishing: "polish", finishingMinutes: 10 },
       { mode: "standard", fabricationMinutes: 12, heatTreatmentMinutes: 35, finishing: "stain_glaze", finishingMinutes: 15 },
-      { mode: "refined", fabricationMinutes: 20, heatTreatmentMinutes: 60, finishing: "stain_glaze", finishingMinutes: 20 },
+      { mode: "refined", fabricationMinutes: 18, heatTreatmentMinutes: 40, finishing: "stain_glaze", finishingMinutes: 12 },
     ],
   },
   {
