@@ -4,6 +4,7 @@ import { AuditEvent } from "./audit-event";
 import { Appointment, AppointmentStage, Reservation } from "./appointment";
 import { Clinic } from "./clinic";
 import { ClosedDay, OpeningHour } from "./clinic-hours";
+import { PatientDocument } from "./document";
 import { Equipment, EquipmentOutage } from "./equipment";
 import { Material, MaterialMode, StageDuration } from "./material";
 import { Patient } from "./patient";
@@ -50,10 +51,14 @@ if (!globalThis.__cuspalAssociated) {
   Proposal.hasMany(Appointment, { foreignKey: "proposalId", as: "appointments" });
 
   Equipment.hasMany(EquipmentOutage, { foreignKey: "equipmentId", as: "outages" });
+
+  PatientDocument.belongsTo(Patient, { foreignKey: "patientId", as: "patient" });
+  PatientDocument.belongsTo(User, { foreignKey: "uploadedById", as: "uploadedBy" });
+  Patient.hasMany(PatientDocument, { foreignKey: "patientId", as: "documents" });
 }
 
 export {
   sequelize, Appointment, AppointmentStage, AuditEvent, Clinic, ClosedDay, Equipment, EquipmentOutage,
-  Material, MaterialMode, OpeningHour, Patient, Proposal, ProposalMaterial, Reservation, SignInAttempt,
+  Material, MaterialMode, OpeningHour, Patient, PatientDocument, Proposal, ProposalMaterial, Reservation, SignInAttempt,
   StageDuration, User,
 };

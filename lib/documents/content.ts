@@ -1,0 +1,48 @@
+// Checks an upload by its bytes and prepares it for storage: the type comes from the content
+// (magic bytes), never from the name or the browser's claim, and photos lose their metadata
+// (EXIF, including GPS location, XMP and IPTC) before they are stored.
+import "server-only";
+import { fileTypeFromBuffer } from "file-type";
+import sharp from "sharp";
+import { AppError } from "@/lib/server/errors";
+import {
+  ALLOWED_CONTENT, isAllowedContentType, MAX_DOCUMENT_BYTES, tooLargeMessage, unsupportedContentMessage, type AllowedContentType,
+} from "@/lib/domain/documents";
+
+export type PreparedContent = { bytes: Uint8Array; contentType: AllowedContentType };
+
+export async function detectContentType(bytes: Uint8Array): Promise<string | undefined> {
+  return (await fileTypeFromBuffer(bytes))?.mime;
+}
+
+/** Throws 413 or 415 as an AppError; returns the bytes to store and their real type. */
+export async function prepareContent(bytes: Uint8Array): Promise<PreparedContent> {
+  if (bytes.byteLength > MAX_DOCUMENT_BYTES) throw new AppError(413, tooLargeMessage(bytes.byteLength), { field: "file", code: "too_large" });
+  const detected = await detectContentType(bytes);
+  if (!isAllowedContentType(detected)) {
+    throw new AppError(415, unsupportedContentMessage(detected), { field: "file", code: "unsupported_type" });
+  }
+  if (!ALLOWED_CONTENT[detected].image) return { bytes, contentType: detected };
+  return { bytes: await stripImageMetadata(bytes, detected), contentType: detected };
+}
+
+/**
+ * Re-encodes the image without any metadata. The pixels are first turned upright from the EXIF
+ * orientation, which is lost with the rest; the colour profile is kept because it is not personal.
+ */
+export async function stripImageMetadata(bytes: Uint8Array, type: AllowedContentType): Promise<Uint8Array> {
+  try {
+    const pipeline = sharp(bytes, { failOn: "error" }).rotate().keepIccProfile();
+    const out =
+      type === "image/jpeg" ? pipeline.jpeg({ quality: 90, mozjpeg: true })
+      : type === "image/png" ? pipeline.png()
+      : pipeline.webp({ quality: 90 });
+    return new Uint8Array(await out.toBuffer());
+  } catch {
+    // The signature matched but the image itself cannot be read: treat it as not an image.
+    throw new AppError(415, "This image is damaged or incomplete, so we cannot store it. Please take the photo again or choose another file.", {
+      field: "file",
+      code: "unsupported_type",
+    });
+  }
+}
