@@ -1,6 +1,7 @@
 // All models and their associations; import models from here so associations are always set up.
 import { sequelize } from "../sequelize";
 import { AuditEvent } from "./audit-event";
+import { BlockLot } from "./block-lot";
 import { Appointment, AppointmentStage, Reservation } from "./appointment";
 import { Clinic } from "./clinic";
 import { ClosedDay, OpeningHour } from "./clinic-hours";
@@ -51,6 +52,9 @@ if (!globalThis.__cuspalAssociated) {
   Proposal.hasMany(Appointment, { foreignKey: "proposalId", as: "appointments" });
 
   Equipment.hasMany(EquipmentOutage, { foreignKey: "equipmentId", as: "outages" });
+  EquipmentOutage.belongsTo(Equipment, { foreignKey: "equipmentId", as: "equipment" });
+  Appointment.hasMany(BlockLot, { foreignKey: "appointmentId", as: "lots" });
+  BlockLot.belongsTo(Appointment, { foreignKey: "appointmentId", as: "appointment" });
 
   PatientDocument.belongsTo(Patient, { foreignKey: "patientId", as: "patient" });
   PatientDocument.belongsTo(User, { foreignKey: "uploadedById", as: "uploadedBy" });
@@ -58,7 +62,7 @@ if (!globalThis.__cuspalAssociated) {
 }
 
 export {
-  sequelize, Appointment, AppointmentStage, AuditEvent, Clinic, ClosedDay, Equipment, EquipmentOutage,
+  sequelize, Appointment, AppointmentStage, AuditEvent, BlockLot, Clinic, ClosedDay, Equipment, EquipmentOutage,
   Material, MaterialMode, OpeningHour, Patient, PatientDocument, Proposal, ProposalMaterial, Reservation, SignInAttempt,
   StageDuration, User,
 };
