@@ -5,6 +5,8 @@ import { BlockLot } from "./block-lot";
 import { Appointment, AppointmentStage, Reservation } from "./appointment";
 import { Clinic } from "./clinic";
 import { ClosedDay, OpeningHour } from "./clinic-hours";
+import { Consent, ConsentPdf, ConsentTemplate } from "./consent";
+import { registerConsentGuard } from "./consent-guard";
 import { PatientDocument } from "./document";
 import { Equipment, EquipmentOutage } from "./equipment";
 import { Material, MaterialMode, StageDuration } from "./material";
@@ -59,10 +61,16 @@ if (!globalThis.__cuspalAssociated) {
   PatientDocument.belongsTo(Patient, { foreignKey: "patientId", as: "patient" });
   PatientDocument.belongsTo(User, { foreignKey: "uploadedById", as: "uploadedBy" });
   Patient.hasMany(PatientDocument, { foreignKey: "patientId", as: "documents" });
+
+  Consent.belongsTo(Appointment, { foreignKey: "appointmentId", as: "appointment" });
+  Consent.belongsTo(ConsentTemplate, { foreignKey: "templateId", as: "template" });
+  Consent.hasMany(ConsentPdf, { foreignKey: "consentId", as: "pdfs" });
+  Appointment.hasMany(Consent, { foreignKey: "appointmentId", as: "consents" });
+  registerConsentGuard();
 }
 
 export {
-  sequelize, Appointment, AppointmentStage, AuditEvent, BlockLot, Clinic, ClosedDay, Equipment, EquipmentOutage,
+  sequelize, Appointment, AppointmentStage, AuditEvent, BlockLot, Clinic, ClosedDay, Consent, ConsentPdf, ConsentTemplate, Equipment, EquipmentOutage,
   Material, MaterialMode, OpeningHour, Patient, PatientDocument, Proposal, ProposalMaterial, Reservation, SignInAttempt,
   StageDuration, User,
 };
