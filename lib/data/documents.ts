@@ -3,7 +3,7 @@
 // again if the row cannot be saved, so there is never a row without its object).
 import "server-only";
 import { createHash, randomUUID } from "node:crypto";
-import { Patient, PatientDocument, sequelize, User } from "@/db/models";
+import { Clinic, Patient, PatientDocument, sequelize, User } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { prepareContent } from "@/lib/documents/content";
 import {
@@ -97,11 +97,12 @@ export async function createDocument({
   return { id };
 }
 
-/** The patient's documents, newest first. Looking at the list is itself recorded. */
+/** The patient's documents, newest first, and the clinic's time zone to show them in. Looking is recorded. */
 export async function listDocuments({
   actor, patientId, client,
-}: { actor: Actor; patientId?: string; client: ClientInfo }): Promise<DocumentView[]> {
+}: { actor: Actor; patientId?: string; client: ClientInfo }): Promise<{ documents: DocumentView[]; timeZone: string }> {
   const patient = await patientFor(actor, patientId);
+  const clinic = await Clinic.findByPk(patient.clinicId, { attributes: ["timeZone"] });
   const rows = await PatientDocument.findAll({
     where: { patientId: patient.id, clinicId: patient.clinicId },
     include: [{ model: User, as: "uploadedBy", attributes: ["id", "name", "email"] }],
@@ -111,7 +112,7 @@ export async function listDocuments({
     clinicId: patient.clinicId, actorUserId: actor.id, action: "documents.listed", subjectType: "patient", subjectId: patient.id,
     ip: client.ip, userAgent: client.userAgent, data: { count: rows.length },
   });
-  return rows.map((d) => ({
+  const documents = rows.map((d) => ({
     id: d.id,
     kind: d.kind,
     kindLabel: DOCUMENT_KIND_LABEL[d.kind],
@@ -125,6 +126,7 @@ export async function listDocuments({
     },
     createdAt: d.createdAt.toISOString(),
   }));
+  return { documents, timeZone: clinic?.timeZone ?? "UTC" };
 }
 
 /** Opens one document for viewing or download after checking access; the view is recorded first. */

@@ -34,7 +34,9 @@ export function route<C = unknown>(handler: Handler<C>): Handler<C> {
 export async function readJson<T>(req: Request, schema: ZodType<T>): Promise<T> {
   let body: unknown;
   try {
-    body = await req.json();
+    const text = await req.text();
+    // An empty body is an empty object, so actions without fields need no "{}".
+    body = text.trim() === "" ? {} : JSON.parse(text);
   } catch {
     throw badRequest("The request body must be valid JSON.");
   }

@@ -1,0 +1,156 @@
+// Booking a visit: one appointment, its planned stages and one reservation per resource per stage
+// window, all in one transaction. PostgreSQL's exclusion constraint on reservations is the final
+// guard against double booking: of two concurrent requests for the same resources, one fails.
+import { Op, UniqueConstraintError, ExclusionConstraintError, type Transaction } from "sequelize";
+import { Appointment, AppointmentStage, Clinic, Proposal, ProposalMaterial, Reservation, sequelize } from "@/db/models";
+import { assertCanSee } from "@/lib/data/access";
+import { allowedOption } from "@/lib/data/proposals";
+import type { SessionUser } from "@/lib/auth/session";
+import { assign, holdsFor, isCandidateStart, nearest } from "@/lib/domain/availability";
+import type { Timeline } from "@/lib/domain/timeline";
+import { addDays, isoInZone, localDate } from "@/lib/domain/time-zone";
+import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
+import { recordAudit } from "@/lib/server/audit";
+import { AppError, badRequest, conflict, notFound } from "@/lib/server/errors";
+import { loadBusy, loadResources, loadRules, loadTimeline } from "./context";
+import { writeSchedule } from "./schedule";
+import { searchSlots } from "./search";
+
+const MIN = 60_000;
+const ATTEMPTS = 3;
+
+export type Actor = { user: SessionUser; ip?: string; userAgent?: string };
+
+class SlotTaken extends Error {}
+
+/** Finds free resources for `start` inside the transaction, or throws SlotTaken / a 4xx. */
+async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
+  const rules = await loadRules(opts.clinic, opts.transaction);
+  if (opts.start.getTime() <= opts.now.getTime()) throw badRequest("That time has already passed. Pick a time in the future.", "start");
+  if (!isCandidateStart(rules, opts.timeline.totalMinutes, opts.start, opts.now)) {
+    throw badRequest(
+      `That is not a bookable start time: visits start on the ${rules.slotMinutes}-minute grid, inside opening hours, at least ${Math.round(rules.minNoticeMinutes / 60)} hours ahead, and must end before closing.`,
+      "start",
+    );
+  }
+  const resources = await loadResources(opts.clinic.id, opts.proposal.dentistId, opts.transaction);
+  const busy = await loadBusy({
+    clinicId: opts.clinic.id,
+    resources,
+    from: new Date(opts.start.getTime() - 60 * MIN),
+    to: new Date(opts.start.getTime() + (opts.timeline.totalMinutes + 120) * MIN),
+    excludeAppointmentId: opts.excludeAppointmentId,
+    transaction: opts.transaction,
+  });
+  const assignment = assign(holdsFor(opts.timeline, opts.start.getTime(), rules.bufferMinutes), resources, busy);
+  if (!assignment) throw new SlotTaken();
+  return { assignment, rules };
+}
+
+async function alternatives(proposal: Proposal, materialId: string, mode: Mode, wanted: Date, zone: string, now: Date, excludeAppointmentId?: string) {
+  const day = localDate(wanted, zone);
+  const { slots } = await searchSlots({ proposal, materialId, mode, from: addDays(day, -3), days: 7, now, excludeAppointmentId });
+  return nearest(slots, wanted, 3).map((s) => ({ start: isoInZone(s.start, zone), end: isoInZone(s.end, zone) }));
+}
+
+function isRaceLoss(err: unknown) {
+  return err instanceof SlotTaken || err instanceof ExclusionConstraintError || (err as { parent?: { code?: string } })?.parent?.code === "23P01";
+}
+
+export async function bookVisit(opts: { proposalId: string; materialId: string; mode: Mode; start: Date; actor: Actor; now?: Date }) {
+  const { actor } = opts;
+  const now = opts.now ?? new Date();
+  const proposal = await Proposal.findByPk(opts.proposalId, { include: [{ model: ProposalMaterial, as: "options", include: ["material"] }] });
+  // Patients reach only their own proposals; staff only their clinic's. Others get 404.
+  await assertCanSee(actor.user, proposal, "That proposal");
+  const p = proposal!;
+  if (p.status !== "open") throw conflict("This proposal is closed: ask the clinic for a new one.");
+  allowedOption(p, opts.materialId, opts.mode);
+  const clinic = (await Clinic.findByPk(p.clinicId))!;
+  const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
+
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await sequelize.transaction(async (transaction) => {
+        const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, transaction });
+        if (active) throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.", { appointmentId: active.id });
+        const { assignment, rules } = await placeAt({ clinic, proposal: p, timeline, start: opts.start, now, transaction });
+        const appointment = await Appointment.create(
+          {
+            clinicId: clinic.id,
+            proposalId: p.id,
+            patientId: p.patientId,
+            dentistId: p.dentistId,
+            materialId: opts.materialId,
+            mode: opts.mode,
+            tooth: p.tooth,
+            startsAt: opts.start,
+            endsAt: new Date(opts.start.getTime() + timeline.totalMinutes * MIN),
+            chairId: assignment.chair!,
+            millId: assignment.mill!,
+            furnaceId: assignment.furnace,
+            feeCents: p.feeCents,
+            createdBy: actor.user.id,
+          },
+          { transaction },
+        );
+        await writeSchedule({ appointment, timeline, start: opts.start, assignment, bufferMinutes: rules.bufferMinutes, transaction });
+        await recordAudit(
+          { clinicId: clinic.id, actorUserId: actor.user.id, action: "visit.requested", subjectType: "appointment", subjectId: appointment.id, ip: actor.ip, userAgent: actor.userAgent, data: { start: opts.start.toISOString(), materialId: opts.materialId, mode: opts.mode } },
+          transaction,
+        );
+        return appointment;
+      });
+    } catch (err) {
+      if (err instanceof UniqueConstraintError && String(err.parent?.message ?? "").includes("appointments_one_active_per_proposal")) {
+        throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.");
+      }
+      if (!isRaceLoss(err)) throw err;
+      // Another booking took a resource between our read and our insert: look again, maybe another chair or mill is free.
+      if (err instanceof SlotTaken || attempt >= ATTEMPTS) {
+        throw new AppError(409, "That time was just taken. Here are the nearest free times.", {
+          code: "slot_taken",
+          extra: { alternatives: await alternatives(p, opts.materialId, opts.mode, opts.start, clinic.timeZone, now) },
+        });
+      }
+    }
+  }
+}
+
+/** Moves an active visit to a new start, re-checked against availability; reservations are replaced. */
+export async function rescheduleVisit(opts: { appointment: Appointment; start: Date; actor: Actor; now?: Date; status?: "requested" | "confirmed" }) {
+  const now = opts.now ?? new Date();
+  const { appointment, actor } = opts;
+  const proposal = await Proposal.findByPk(appointment.proposalId);
+  if (!proposal) throw notFound("That proposal");
+  const clinic = (await Clinic.findByPk(appointment.clinicId))!;
+  const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: appointment.materialId, mode: appointment.mode, tooth: appointment.tooth });
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const fresh = await Appointment.findByPk(appointment.id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!fresh || !["requested", "confirmed"].includes(fresh.status)) throw conflict("Only a requested or confirmed visit can be moved.");
+      await Reservation.update({ active: false }, { where: { appointmentId: fresh.id }, transaction });
+      const { assignment, rules } = await placeAt({ clinic, proposal, timeline, start: opts.start, now, excludeAppointmentId: fresh.id, transaction });
+      await AppointmentStage.destroy({ where: { appointmentId: fresh.id }, transaction });
+      await Reservation.destroy({ where: { appointmentId: fresh.id }, transaction });
+      const from = fresh.startsAt;
+      await fresh.update(
+        { startsAt: opts.start, endsAt: new Date(opts.start.getTime() + timeline.totalMinutes * MIN), chairId: assignment.chair!, millId: assignment.mill!, furnaceId: assignment.furnace, status: opts.status ?? fresh.status },
+        { transaction },
+      );
+      await writeSchedule({ appointment: fresh, timeline, start: opts.start, assignment, bufferMinutes: rules.bufferMinutes, transaction });
+      await recordAudit(
+        { clinicId: clinic.id, actorUserId: actor.user.id, action: "visit.moved", subjectType: "appointment", subjectId: fresh.id, ip: actor.ip, userAgent: actor.userAgent, data: { from: from.toISOString(), to: opts.start.toISOString() } },
+        transaction,
+      );
+      return fresh;
+    });
+  } catch (err) {
+    if (!isRaceLoss(err)) throw err;
+    throw new AppError(409, "That time is not free any more. Here are the nearest free times.", {
+      code: "slot_taken",
+      extra: { alternatives: await alternatives(proposal, appointment.materialId, appointment.mode, opts.start, clinic.timeZone, now, appointment.id) },
+    });
+  }
+}
+

@@ -1,0 +1,93 @@
+// Data access for crown proposals.
+import "server-only";
+import { Op } from "sequelize";
+import { Appointment, Material, MaterialMode, Patient, Proposal, ProposalMaterial, User, sequelize } from "@/db/models";
+import type { SessionUser } from "@/lib/auth/session";
+import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
+import { describeTooth } from "@/lib/domain/tooth";
+import { recordAudit } from "@/lib/server/audit";
+import { notFound, unprocessable } from "@/lib/server/errors";
+import { assertCanSee, patientOf } from "./access";
+import type { ProposalInput } from "@/lib/booking/schemas";
+
+const include = [
+  { model: ProposalMaterial, as: "options", include: [{ model: Material, as: "material", include: [{ model: MaterialMode, as: "modes" }] }] },
+  { model: Patient, as: "patient", include: [{ model: User, as: "user", attributes: ["id", "name", "email"] }] },
+  { model: User, as: "dentist", attributes: ["id", "name"] },
+];
+
+export type ProposalView = ReturnType<typeof toView>;
+
+function toView(p: Proposal, activeVisit: Appointment | null) {
+  return {
+    id: p.id,
+    tooth: describeTooth(p.tooth),
+    feeCents: p.feeCents,
+    note: p.note,
+    status: p.status,
+    createdAt: p.createdAt.toISOString(),
+    patient: { id: p.patientId, name: p.patient?.user?.name ?? null },
+    dentist: { id: p.dentistId, name: p.dentist?.name ?? null },
+    materials: (p.options ?? [])
+      .slice()
+      .sort((a, b) => (a.material?.sortOrder ?? 0) - (b.material?.sortOrder ?? 0))
+      .map((o) => ({
+        id: o.materialId,
+        key: o.material!.key,
+        name: o.material!.name,
+        modes: o.modes.filter((m) => o.material!.modes?.some((mm) => mm.mode === m)),
+      })),
+    activeVisit: activeVisit ? { id: activeVisit.id, status: activeVisit.status, startsAt: activeVisit.startsAt.toISOString() } : null,
+  };
+}
+
+async function activeVisits(proposalIds: string[]) {
+  if (!proposalIds.length) return new Map<string, Appointment>();
+  const rows = await Appointment.findAll({ where: { proposalId: { [Op.in]: proposalIds }, status: { [Op.in]: [...ACTIVE_STATUSES] } } });
+  return new Map(rows.map((a) => [a.proposalId, a]));
+}
+
+export async function listProposals({ user }: { user: SessionUser }) {
+  const where = user.role === "patient" ? { patientId: (await patientOf(user)).id } : { clinicId: user.clinicId! };
+  const rows = await Proposal.findAll({ where, include, order: [["createdAt", "DESC"]] });
+  const active = await activeVisits(rows.map((r) => r.id));
+  return rows.map((r) => toView(r, active.get(r.id) ?? null));
+}
+
+export async function getProposal({ user, id }: { user: SessionUser; id: string }) {
+  const row = /^[0-9a-f-]{36}$/i.test(id) ? await Proposal.findByPk(id, { include }) : null;
+  await assertCanSee(user, row, "That proposal");
+  const active = await activeVisits([row!.id]);
+  return { row: row!, view: toView(row!, active.get(row!.id) ?? null) };
+}
+
+/** The proposal's allowed material and mode, or a clear 4xx. */
+export function allowedOption(row: Proposal, materialId: string, mode: Mode) {
+  const option = row.options?.find((o) => o.materialId === materialId);
+  if (!option) throw unprocessable("This proposal does not offer that material.", "materialId");
+  if (!option.modes.includes(mode)) throw unprocessable(`This proposal does not offer ${option.material?.name ?? "that material"} in the ${mode} mode.`, "mode");
+  return option;
+}
+
+export async function createProposal({ user, input, ip, userAgent }: { user: SessionUser; input: ProposalInput; ip?: string; userAgent?: string }) {
+  const patient = await Patient.findOne({ where: { id: input.patientId, clinicId: user.clinicId! } });
+  if (!patient) throw notFound("That patient");
+  const materials = await Material.findAll({ where: { id: { [Op.in]: input.options.map((o) => o.materialId) }, clinicId: user.clinicId!, active: true }, include: [{ model: MaterialMode, as: "modes" }] });
+  for (const option of input.options) {
+    const material = materials.find((m) => m.id === option.materialId);
+    if (!material) throw unprocessable("One of the materials is not in this clinic's catalogue.", "options");
+    const toothClass = describeTooth(input.tooth).toothClass;
+    if (!material.toothClasses.includes(toothClass)) throw unprocessable(`${material.name} is not indicated for a ${toothClass} tooth in this clinic's catalogue.`, "options");
+    const missing = option.modes.filter((m) => !material.modes?.some((mm) => mm.mode === m));
+    if (missing.length) throw unprocessable(`${material.name} has no ${missing.join(", ")} mode here.`, "options");
+  }
+  return sequelize.transaction(async (transaction) => {
+    const proposal = await Proposal.create(
+      { clinicId: user.clinicId!, patientId: patient.id, dentistId: user.role === "dentist" ? user.id : input.dentistId ?? user.id, tooth: input.tooth, feeCents: Math.round(input.fee * 100), note: input.note || null },
+      { transaction },
+    );
+    await ProposalMaterial.bulkCreate(input.options.map((o) => ({ proposalId: proposal.id, materialId: o.materialId, modes: o.modes })), { transaction });
+    await recordAudit({ clinicId: user.clinicId, actorUserId: user.id, action: "proposal.created", subjectType: "proposal", subjectId: proposal.id, ip, userAgent, data: { tooth: input.tooth } }, transaction);
+    return proposal;
+  });
+}
