@@ -3,6 +3,9 @@
 
 /** Who may upload: the patient, or staff of the patient's clinic. */
 export type UploaderRole = "patient" | "reception" | "dentist" | "admin";
+export const UPLOADER_ROLE_LABEL: Record<UploaderRole, string> = {
+  patient: "Patient", reception: "Reception", dentist: "Dentist", admin: "Clinic manager",
+};
 
 export const DOCUMENT_KINDS = [
   "insurance_card_front",
@@ -82,9 +85,9 @@ export function formatBytes(bytes: number): string {
 }
 
 export function tooLargeMessage(bytes?: number): string {
-  const size = bytes === undefined ? "This file is" : `This file is ${formatBytes(bytes)};`;
-  const tail = bytes === undefined ? " larger than 15 MB, the limit." : " the limit is 15 MB.";
-  return `${size}${tail} Please choose a smaller file, or take the photo again at a lower resolution.`;
+  // Rounded up, so a file just over the limit never reads as exactly 15 MB.
+  const size = bytes === undefined ? "This file is larger than 15 MB, the limit." : `This file is ${(Math.ceil((bytes / (1024 * 1024)) * 10) / 10).toFixed(1)} MB; the limit is 15 MB.`;
+  return `${size} Please choose a smaller file, or take the photo again at a lower resolution.`;
 }
 
 /**

@@ -39,7 +39,8 @@ describe("allowed content", () => {
 
   it("sets the limit at 15 MB and says so with the file's size", () => {
     expect(MAX_DOCUMENT_BYTES).toBe(15_728_640);
-    expect(tooLargeMessage(20 * 1024 * 1024)).toMatch(/^This file is 20 MB; the limit is 15 MB\./);
+    expect(tooLargeMessage(20 * 1024 * 1024)).toMatch(/^This file is 20\.0 MB; the limit is 15 MB\./);
+    expect(tooLargeMessage(MAX_DOCUMENT_BYTES + 1)).toMatch(/^This file is 15\.1 MB;/);
     expect(tooLargeMessage()).toMatch(/larger than 15 MB/);
     expect(formatBytes(512)).toBe("512 bytes");
     expect(formatBytes(2048)).toBe("2 KB");

@@ -25,6 +25,6 @@ export const POST = route(async (req: NextRequest) => {
 export const GET = route(async (req: NextRequest) => {
   const user = await requireUser();
   const patientId = req.nextUrl.searchParams.get("patientId") ?? undefined;
-  const documents = await listDocuments({ actor: user, patientId, client: clientInfo(req) });
+  const { documents } = await listDocuments({ actor: user, patientId, client: clientInfo(req) });
   return NextResponse.json({ documents });
 });

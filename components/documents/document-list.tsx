@@ -1,0 +1,36 @@
+// The documents of one patient, newest first, with links that open or save each file through
+// the access-checked route.
+import type { DocumentView } from "@/lib/data/documents";
+import { ALLOWED_CONTENT, formatBytes, UPLOADER_ROLE_LABEL } from "@/lib/domain/documents";
+
+export function DocumentList({ documents, timeZone, emptyText }: { documents: DocumentView[]; timeZone: string; emptyText: string }) {
+  if (documents.length === 0) return <p className="text-ink-soft">{emptyText}</p>;
+  const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone });
+  return (
+    <ul className="divide-y divide-line" data-testid="document-list">
+      {documents.map((d) => (
+        <li key={d.id} className="flex flex-col gap-2 py-3 sm:flex-row sm:items-center sm:justify-between">
+          <div className="min-w-0">
+            <p className="font-semibold break-words">{d.title}</p>
+            <p className="text-sm text-ink-soft">
+              <span className="chip border-harbour-600 bg-harbour-50 text-harbour-800">{d.kindLabel}</span>{" "}
+              {ALLOWED_CONTENT[d.contentType].label}, {formatBytes(d.byteSize)}
+            </p>
+            <p className="text-sm text-ink-muted">
+              Added by {d.uploadedBy.isYou ? "you" : `${d.uploadedBy.name} (${UPLOADER_ROLE_LABEL[d.uploadedBy.role]})`} on{" "}
+              <time dateTime={d.createdAt}>{when.format(new Date(d.createdAt))}</time>
+            </p>
+          </div>
+          <div className="flex shrink-0 gap-2">
+            <a className="btn-quiet" href={`/api/documents/${d.id}`}>
+              Open<span className="sr-only"> {d.title}</span>
+            </a>
+            <a className="btn-quiet" href={`/api/documents/${d.id}?download=1`}>
+              Download<span className="sr-only"> {d.title}</span>
+            </a>
+          </div>
+        </li>
+      ))}
+    </ul>
+  );
+}

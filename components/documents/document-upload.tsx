@@ -1,0 +1,161 @@
+"use client";
+
+// Upload form for documents: from the camera or from files, with progress (XMLHttpRequest, as
+// fetch cannot report upload progress) and a retry that resends the same file.
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useId, useRef, useState } from "react";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import {
+  ACCEPT_ATTRIBUTE, DOCUMENT_KIND_LABEL, formatBytes, MAX_DOCUMENT_BYTES, tooLargeMessage, type DocumentKind,
+} from "@/lib/domain/documents";
+import { documentFieldsSchema, TITLE_MAX } from "@/lib/documents/schema";
+
+type Input = z.input<typeof documentFieldsSchema>;
+type Output = z.output<typeof documentFieldsSchema>;
+type Attempt = { values: Output; file: File };
+type State =
+  | { step: "idle" }
+  | { step: "sending"; percent: number | null }
+  | { step: "failed"; message: string; retry: boolean }
+  | { step: "done"; title: string };
+
+const pickerClass =
+  "btn-quiet cursor-pointer has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-harbour-600";
+
+export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; patientId?: string }) {
+  const router = useRouter();
+  const ids = useId();
+  const [file, setFile] = useState<File | null>(null);
+  const [fileError, setFileError] = useState<string | null>(null);
+  const [state, setState] = useState<State>({ step: "idle" });
+  const lastAttempt = useRef<Attempt | null>(null);
+
+  const { register, handleSubmit, setValue, getValues, setError, reset, formState: { errors } } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(documentFieldsSchema),
+    defaultValues: { kind: "" as DocumentKind, title: "", patientId },
+  });
+
+  const kindField = register("kind", {
+    onChange: (e: React.ChangeEvent<HTMLSelectElement>) => {
+      // Offer the kind's name as the title until the person types their own.
+      const title = getValues("title").trim();
+      const previous = Object.values(DOCUMENT_KIND_LABEL);
+      if (!title || previous.includes(title)) setValue("title", DOCUMENT_KIND_LABEL[e.target.value as DocumentKind] ?? "");
+    },
+  });
+
+  function choose(e: React.ChangeEvent<HTMLInputElement>) {
+    const chosen = e.target.files?.[0] ?? null;
+    e.target.value = "";
+    setState({ step: "idle" });
+    if (!chosen) return;
+    setFile(chosen);
+    setFileError(chosen.size > MAX_DOCUMENT_BYTES ? tooLargeMessage(chosen.size) : null);
+  }
+
+  function send({ values, file: toSend }: Attempt) {
+    lastAttempt.current = { values, file: toSend };
+    const body = new FormData();
+    body.set("kind", values.kind);
+    body.set("title", values.title);
+    if (values.patientId) body.set("patientId", values.patientId);
+    body.set("file", toSend, toSend.name);
+
+    const xhr = new XMLHttpRequest();
+    xhr.open("POST", "/api/documents");
+    xhr.responseType = "json";
+    xhr.upload.onprogress = (e) => setState({ step: "sending", percent: e.lengthComputable ? Math.round((e.loaded / e.total) * 100) : null });
+    xhr.onload = () => {
+      if (xhr.status === 201) {
+        setState({ step: "done", title: values.title });
+        setFile(null);
+        lastAttempt.current = null;
+        reset({ kind: "" as DocumentKind, title: "", patientId });
+        router.refresh();
+        return;
+      }
+      const res = (xhr.response ?? {}) as { error?: string; field?: string };
+      const message = res.error ?? "The upload did not work. Please try again.";
+      if (res.field === "kind" || res.field === "title") setError(res.field, { message });
+      if (res.field === "file") setFileError(message);
+      setState({ step: "failed", message, retry: xhr.status >= 500 || xhr.status === 408 || xhr.status === 429 });
+    };
+    xhr.onerror = xhr.ontimeout = () =>
+      setState({ step: "failed", message: "The upload did not get through. Check your connection, then try again.", retry: true });
+    setState({ step: "sending", percent: 0 });
+    xhr.send(body);
+  }
+
+  const submit = handleSubmit((values) => {
+    if (!file) return setFileError("Take a photo or choose a file first.");
+    if (file.size > MAX_DOCUMENT_BYTES) return setFileError(tooLargeMessage(file.size));
+    send({ values, file });
+  });
+
+  const sending = state.step === "sending";
+  return (
+    <form onSubmit={submit} noValidate className="space-y-4" aria-describedby={`${ids}-rules`}>
+      <p id={`${ids}-rules`} className="text-sm text-ink-soft">
+        Photos (JPEG, PNG or WebP) or PDF files, up to 15 MB. Location data is removed from photos before they are stored.
+      </p>
+
+      <div>
+        <label htmlFor={`${ids}-kind`} className="field-label">What is it?</label>
+        <select id={`${ids}-kind`} className="field-input" aria-invalid={!!errors.kind} aria-describedby={errors.kind ? `${ids}-kind-error` : undefined} {...kindField}>
+          <option value="">Choose…</option>
+          {kinds.map((k) => <option key={k} value={k}>{DOCUMENT_KIND_LABEL[k]}</option>)}
+        </select>
+        {errors.kind ? <p id={`${ids}-kind-error`} className="field-error">{errors.kind.message}</p> : null}
+      </div>
+
+      <div>
+        <label htmlFor={`${ids}-title`} className="field-label">Title</label>
+        <input id={`${ids}-title`} className="field-input" maxLength={TITLE_MAX} autoComplete="off"
+          aria-invalid={!!errors.title} aria-describedby={errors.title ? `${ids}-title-error` : undefined} {...register("title")} />
+        {errors.title ? <p id={`${ids}-title-error`} className="field-error">{errors.title.message}</p> : null}
+      </div>
+
+      <fieldset aria-describedby={fileError ? `${ids}-file-error` : undefined}>
+        <legend className="field-label">File</legend>
+        <div className="flex flex-wrap gap-2">
+          <label className={pickerClass}>
+            <input type="file" accept="image/*" capture="environment" className="sr-only" onChange={choose} disabled={sending} />
+            Take a photo
+          </label>
+          <label className={pickerClass}>
+            <input type="file" accept={ACCEPT_ATTRIBUTE} className="sr-only" onChange={choose} disabled={sending} />
+            Choose a file
+          </label>
+        </div>
+        <p className="mt-2 text-sm text-ink-soft" aria-live="polite" data-testid="chosen-file">
+          {file ? <>Chosen: <span className="font-semibold break-all">{file.name}</span> ({formatBytes(file.size)})</> : "No file chosen yet."}
+        </p>
+        {fileError ? <p id={`${ids}-file-error`} className="field-error" role="alert">{fileError}</p> : null}
+      </fieldset>
+
+      <div className="flex flex-wrap items-center gap-3">
+        <button type="submit" className="btn-primary" disabled={sending}>{sending ? "Uploading…" : "Upload"}</button>
+        {state.step === "failed" && state.retry && lastAttempt.current ? (
+          <button type="button" className="btn-quiet" onClick={() => lastAttempt.current && send(lastAttempt.current)}>Try again</button>
+        ) : null}
+      </div>
+
+      {sending ? (
+        <div className="space-y-1">
+          <label htmlFor={`${ids}-progress`} className="text-sm font-semibold">
+            Uploading {state.percent === null ? "…" : `${state.percent} %`}
+          </label>
+          <progress id={`${ids}-progress`} className="block h-3 w-full accent-harbour-600" max={100} value={state.percent ?? undefined} />
+        </div>
+      ) : null}
+      <div aria-live="polite">
+        {state.step === "done" ? <p className="font-semibold text-sage-700" data-testid="upload-done">Uploaded: {state.title}</p> : null}
+      </div>
+      {state.step === "failed" && !fileError && !errors.kind && !errors.title ? (
+        <p className="field-error" role="alert" data-testid="upload-error">{state.message}</p>
+      ) : null}
+    </form>
+  );
+}
