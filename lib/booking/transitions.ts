@@ -37,12 +37,12 @@ async function change(actor: Actor, id: string, from: AppointmentStatus[], to: A
   });
 }
 
-export function confirmVisit(actor: Actor, id: string) {
+export async function confirmVisit(actor: Actor, id: string) {
   if (!["reception", "admin"].includes(actor.user.role)) throw forbidden("Only reception or the clinic manager can confirm visits.");
   return change(actor, id, ["requested"], "confirmed", "visit.confirmed");
 }
 
-export function declineVisit(actor: Actor, id: string, reason: string) {
+export async function declineVisit(actor: Actor, id: string, reason: string) {
   if (!["reception", "admin"].includes(actor.user.role)) throw forbidden("Only reception or the clinic manager can decline visits.");
   return change(actor, id, ["requested"], "declined", "visit.declined", reason);
 }
