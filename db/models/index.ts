@@ -9,11 +9,13 @@ import { Consent, ConsentPdf, ConsentTemplate } from "./consent";
 import { registerConsentGuard } from "./consent-guard";
 import { PatientDocument } from "./document";
 import { Equipment, EquipmentOutage } from "./equipment";
+import { MailAttempt, MailOutbox } from "./mail";
 import { Material, MaterialMode, StageDuration } from "./material";
 import { Patient } from "./patient";
 import { Proposal, ProposalMaterial } from "./proposal";
 import { SignInAttempt } from "./sign-in-attempt";
 import { User } from "./user";
+import { registerVisitMailHooks } from "@/lib/mail/visit-hooks";
 
 declare global {
   var __cuspalAssociated: boolean | undefined;
@@ -69,8 +71,11 @@ if (!globalThis.__cuspalAssociated) {
   registerConsentGuard();
 }
 
+// Per model class (not behind the flag above): a second copy of this module must not lose the e-mail hooks.
+registerVisitMailHooks(Appointment);
+
 export {
   sequelize, Appointment, AppointmentStage, AuditEvent, BlockLot, Clinic, ClosedDay, Consent, ConsentPdf, ConsentTemplate, Equipment, EquipmentOutage,
   Material, MaterialMode, OpeningHour, Patient, PatientDocument, Proposal, ProposalMaterial, Reservation, SignInAttempt,
-  StageDuration, User,
+  StageDuration, User, MailOutbox, MailAttempt,
 };

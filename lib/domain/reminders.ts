@@ -55,8 +55,11 @@ export function durationWords(minutes: number): string {
   return parts.join(" ");
 }
 
-/** "48 hours" / "2 hours" / "1 hour" for a reminder's lead time. */
-export function leadTimeWords(hours: number): string {
-  if (hours % 24 === 0 && hours >= 48) return `${hours / 24} days`;
-  return `${hours} hour${hours === 1 ? "" : "s"}`;
+/** "in about 2 hours" / "in 2 days": how far off the visit is, for a reminder's heading. */
+export function timeUntilWords(from: Date, to: Date): string {
+  const minutes = Math.max(0, Math.round((to.getTime() - from.getTime()) / 60_000));
+  if (minutes < 90) return `in about ${minutes} minute${minutes === 1 ? "" : "s"}`;
+  const hours = Math.round(minutes / 60);
+  if (hours < 36) return `in about ${hours} hours`;
+  return `in ${Math.round(hours / 24)} days`;
 }
