@@ -45,6 +45,11 @@ export async function seedClinic(transaction: Transaction) {
       { transaction },
     );
   }
+  // A second dentist (no demo sign-in needed) so two visits can run side by side on the board.
+  users.dentist2 = await User.create(
+    { email: "felix.amundsen@cuspal.test", name: "Dr Felix Amundsen", role: "dentist", clinicId: clinic.id, passwordHash, emailVerified: null },
+    { transaction },
+  );
   const patient = await Patient.create(
     { userId: users.patient.id, clinicId: clinic.id, dateOfBirth: "1984-03-17", phone: "+1 555 0178" },
     { transaction },

@@ -16,7 +16,8 @@ export async function seedDemo({ reset = false, now = new Date() } = {}): Promis
   else if (await Clinic.findOne({ where: { slug: "alder-bay" } })) return "kept";
   await sequelize.transaction(async (transaction) => {
     const demo = await seedClinic(transaction);
-    await seedProposals(demo, transaction, now);
+    const { visits } = await seedProposals(demo, transaction, now);
+    void visits; // handed to the consent and day-board seeders below
   });
   return "loaded";
 }
