@@ -4,7 +4,7 @@
 // fetch cannot report upload progress) and a retry that resends the same file.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useId, useRef, useState } from "react";
+import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import {
@@ -18,7 +18,7 @@ type Attempt = { values: Output; file: File };
 type State =
   | { step: "idle" }
   | { step: "sending"; percent: number | null }
-  | { step: "failed"; message: string; retry: boolean }
+  | { step: "failed"; message: string; retry: Attempt | null }
   | { step: "done"; title: string };
 
 const pickerClass =
@@ -30,7 +30,6 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
   const [file, setFile] = useState<File | null>(null);
   const [fileError, setFileError] = useState<string | null>(null);
   const [state, setState] = useState<State>({ step: "idle" });
-  const lastAttempt = useRef<Attempt | null>(null);
 
   const { register, handleSubmit, setValue, getValues, setError, reset, formState: { errors } } = useForm<Input, unknown, Output>({
     resolver: zodResolver(documentFieldsSchema),
@@ -55,8 +54,8 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
     setFileError(chosen.size > MAX_DOCUMENT_BYTES ? tooLargeMessage(chosen.size) : null);
   }
 
-  function send({ values, file: toSend }: Attempt) {
-    lastAttempt.current = { values, file: toSend };
+  function send(attempt: Attempt) {
+    const { values, file: toSend } = attempt;
     const body = new FormData();
     body.set("kind", values.kind);
     body.set("title", values.title);
@@ -71,7 +70,6 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
       if (xhr.status === 201) {
         setState({ step: "done", title: values.title });
         setFile(null);
-        lastAttempt.current = null;
         reset({ kind: "" as DocumentKind, title: "", patientId });
         router.refresh();
         return;
@@ -80,10 +78,11 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
       const message = res.error ?? "The upload did not work. Please try again.";
       if (res.field === "kind" || res.field === "title") setError(res.field, { message });
       if (res.field === "file") setFileError(message);
-      setState({ step: "failed", message, retry: xhr.status >= 500 || xhr.status === 408 || xhr.status === 429 });
+      const retryable = xhr.status >= 500 || xhr.status === 408 || xhr.status === 429;
+      setState({ step: "failed", message, retry: retryable ? attempt : null });
     };
     xhr.onerror = xhr.ontimeout = () =>
-      setState({ step: "failed", message: "The upload did not get through. Check your connection, then try again.", retry: true });
+      setState({ step: "failed", message: "The upload did not get through. Check your connection, then try again.", retry: attempt });
     setState({ step: "sending", percent: 0 });
     xhr.send(body);
   }
@@ -132,13 +131,13 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
         <p className="mt-2 text-sm text-ink-soft" aria-live="polite" data-testid="chosen-file">
           {file ? <>Chosen: <span className="font-semibold break-all">{file.name}</span> ({formatBytes(file.size)})</> : "No file chosen yet."}
         </p>
-        {fileError ? <p id={`${ids}-file-error`} className="field-error" role="alert">{fileError}</p> : null}
+        {fileError ? <p id={`${ids}-file-error`} className="field-error" role="alert" data-testid="file-error">{fileError}</p> : null}
       </fieldset>
 
       <div className="flex flex-wrap items-center gap-3">
         <button type="submit" className="btn-primary" disabled={sending}>{sending ? "Uploading…" : "Upload"}</button>
-        {state.step === "failed" && state.retry && lastAttempt.current ? (
-          <button type="button" className="btn-quiet" onClick={() => lastAttempt.current && send(lastAttempt.current)}>Try again</button>
+        {state.step === "failed" && state.retry ? (
+          <button type="button" className="btn-quiet" onClick={() => state.retry && send(state.retry)}>Try again</button>
         ) : null}
       </div>
 

@@ -97,7 +97,6 @@ export function tooLargeMessage(bytes?: number): string {
  */
 export function fileNameProblem(name: string): string | null {
   if (name.length > 255) return "The file name is too long (255 characters at most). Please rename the file.";
-  // eslint-disable-next-line no-control-regex
   if (/[\u0000-\u001f\u007f]/.test(name)) return "The file name contains control characters. Please rename the file.";
   if (/[/\\]/.test(name) || name === "." || name === ".." || name.startsWith("..")) {
     return "The file name looks like a folder path. Please send the file itself with a plain name.";
