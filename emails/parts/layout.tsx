@@ -4,10 +4,13 @@ import type { ReactNode } from "react";
 
 export const colours = { ink: "#1f2a37", muted: "#55606e", accent: "#0d6e6e", paper: "#f7f5f0", card: "#ffffff" };
 
-export function EmailLayout({ preview, clinicName = "Cuspal", clinicAddress, children }: {
+export function EmailLayout({ preview, clinicName = "Cuspal", clinicAddress, clinicPhone, footer, children }: {
   preview: string;
   clinicName?: string;
   clinicAddress?: string;
+  clinicPhone?: string | null;
+  /** Extra small print under the address, e.g. how to turn reminders off. */
+  footer?: ReactNode;
   children: ReactNode;
 }) {
   return (
@@ -19,7 +22,9 @@ export function EmailLayout({ preview, clinicName = "Cuspal", clinicAddress, chi
           <Text style={{ fontSize: 18, fontWeight: 700, color: colours.accent, margin: "0 0 12px" }}>{clinicName}</Text>
           <Section style={{ backgroundColor: colours.card, borderRadius: 12, padding: "20px 24px" }}>{children}</Section>
           <Hr style={{ borderColor: "#ddd8cc", margin: "24px 0 12px" }} />
-          {clinicAddress ? <Text style={{ fontSize: 12, color: colours.muted, margin: 0 }}>{clinicAddress}</Text> : null}
+          {clinicAddress ? <Text style={{ fontSize: 12, color: colours.muted, margin: 0 }}>{clinicName}, {clinicAddress}</Text> : null}
+          {clinicPhone ? <Text style={{ fontSize: 12, color: colours.muted, margin: 0 }}>Phone {clinicPhone}</Text> : null}
+          {footer}
           <Text style={{ fontSize: 12, color: colours.muted }}>
             Sent by Cuspal for your clinic. The portal informs; your dentist decides. Local regulations and licensed practice prevail.
           </Text>

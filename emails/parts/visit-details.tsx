@@ -1,0 +1,62 @@
+// The visit summary every visit e-mail shows (when, where, which tooth, which material, how long),
+// and the props those templates share.
+import { Heading, Section, Text } from "@react-email/components";
+import type { ReactNode } from "react";
+import type { VisitWhen } from "@/lib/domain/visit-when";
+import { colours } from "./layout";
+
+export type VisitMailProps = {
+  clinic: { name: string; address: string; phone: string | null };
+  patientName: string;
+  when: VisitWhen;
+  toothWords: string;
+  materialName: string;
+  /** "2 hours 30 minutes" */
+  lengthWords: string;
+  /** The patient's own page for this visit in the portal. */
+  visitUrl: string;
+};
+
+const label = { fontSize: 12, color: colours.muted, margin: "8px 0 0", textTransform: "uppercase" as const, letterSpacing: 0.5 };
+const value = { fontSize: 15, margin: "2px 0 0" };
+
+export function EmailHeading({ children }: { children: ReactNode }) {
+  return <Heading as="h1" style={{ fontSize: 22, lineHeight: "28px", margin: "0 0 12px", color: colours.ink }}>{children}</Heading>;
+}
+
+export function Greeting({ name }: { name: string }) {
+  return <Text style={{ margin: "0 0 12px" }}>Hello {name || "there"},</Text>;
+}
+
+export function VisitDetails({ when, clinic, toothWords, materialName, lengthWords }: VisitMailProps) {
+  return (
+    <Section style={{ backgroundColor: colours.paper, borderRadius: 8, padding: "8px 16px 12px", margin: "12px 0" }}>
+      <Text style={label}>When</Text>
+      <Text style={value}>
+        {when.date}, {when.start} to {when.end} ({when.zoneName})
+      </Text>
+      <Text style={label}>Where</Text>
+      <Text style={value}>{clinic.name}, {clinic.address}</Text>
+      <Text style={label}>Crown</Text>
+      <Text style={value}>Your {toothWords}, made from {materialName}</Text>
+      <Text style={label}>Allow</Text>
+      <Text style={value}>About {lengthWords} in the chair, start to finish</Text>
+    </Section>
+  );
+}
+
+export function SmallPrint({ children }: { children: ReactNode }) {
+  return <Text style={{ fontSize: 13, color: colours.muted }}>{children}</Text>;
+}
+
+export function BulletList({ items }: { items: ReactNode[] }) {
+  return (
+    <Section style={{ margin: "4px 0 8px" }}>
+      {items.map((item, i) => (
+        <Text key={i} style={{ margin: "4px 0", paddingLeft: 14, textIndent: -14 }}>
+          • {item}
+        </Text>
+      ))}
+    </Section>
+  );
+}
