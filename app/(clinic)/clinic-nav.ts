@@ -5,6 +5,7 @@ import type { NavItem } from "@/components/site-header";
 export function clinicNav(role: Role): NavItem[] {
   const items: (NavItem & { roles: Role[] })[] = [
     { href: "/clinic", label: "Today", roles: ["reception", "dentist", "admin"] },
+    { href: "/clinic/requests", label: "Requests", roles: ["reception", "admin"] },
     { href: "/clinic/patients", label: "Patients", roles: ["reception", "dentist", "admin"] },
   ];
   return items.filter((i) => i.roles.includes(role)).map(({ href, label }) => ({ href, label }));

@@ -1,0 +1,111 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import type { z } from "zod";
+import { proposalSchema } from "@/lib/booking/schemas";
+import { describeTooth, isValidFdi } from "@/lib/domain/tooth";
+import type { Mode } from "@/lib/domain/types";
+import { MODE_WORDS } from "@/lib/format";
+
+type Input = z.input<typeof proposalSchema>;
+type Output = z.output<typeof proposalSchema>;
+type Props = {
+  role: string;
+  patients: { id: string; name: string }[];
+  dentists: { id: string; name: string }[];
+  materials: { id: string; name: string; toothClasses: string[]; modes: Mode[] }[];
+};
+
+export function ProposalForm({ role, patients, dentists, materials }: Props) {
+  const router = useRouter();
+  const [message, setMessage] = useState<string | null>(null);
+  const [allowed, setAllowed] = useState<Record<string, Mode[]>>({});
+  const { register, handleSubmit, control, setValue, formState } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(proposalSchema),
+    defaultValues: { options: [], note: "" },
+  });
+  const tooth = useWatch({ control, name: "tooth" });
+  const toothInfo = tooth && isValidFdi(String(tooth)) ? describeTooth(Number(tooth)) : null;
+  const { errors, isSubmitting } = formState;
+
+  function toggle(materialId: string, mode: Mode, on: boolean) {
+    const next = { ...allowed, [materialId]: on ? [...(allowed[materialId] ?? []), mode] : (allowed[materialId] ?? []).filter((m) => m !== mode) };
+    if (!next[materialId].length) delete next[materialId];
+    setAllowed(next);
+    setValue("options", Object.entries(next).map(([id, modes]) => ({ materialId: id, modes })), { shouldValidate: formState.isSubmitted });
+  }
+
+  const onSubmit = handleSubmit(async (values) => {
+    setMessage(null);
+    const res = await fetch("/api/proposals", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(values) });
+    const body = await res.json().catch(() => ({}));
+    if (!res.ok) return setMessage(body.error ?? "The proposal was not saved.");
+    router.push("/clinic");
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="card space-y-4">
+      {message ? <p role="alert" className="rounded-lg bg-clay-50 p-3 text-sm font-medium text-clay-700">{message}</p> : null}
+      <div>
+        <label htmlFor="patientId" className="field-label">Patient</label>
+        <select id="patientId" className="field-input" {...register("patientId")} defaultValue="">
+          <option value="" disabled>Choose a patient</option>
+          {patients.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+        </select>
+        {errors.patientId ? <p className="field-error">{errors.patientId.message}</p> : null}
+      </div>
+      {role === "admin" ? (
+        <div>
+          <label htmlFor="dentistId" className="field-label">Dentist</label>
+          <select id="dentistId" className="field-input" {...register("dentistId")} defaultValue="">
+            <option value="" disabled>Choose the dentist</option>
+            {dentists.map((d) => <option key={d.id} value={d.id}>{d.name}</option>)}
+          </select>
+        </div>
+      ) : null}
+      <div>
+        <label htmlFor="tooth" className="field-label">Tooth (ISO 3950, two digits)</label>
+        <input id="tooth" inputMode="numeric" className="field-input" placeholder="36" {...register("tooth")} aria-describedby="tooth-help" />
+        <p id="tooth-help" className="mt-1 text-sm text-ink-soft" aria-live="polite">{toothInfo ? toothInfo.label : "For example 36 = lower left first molar."}</p>
+        {errors.tooth ? <p className="field-error">{errors.tooth.message}</p> : null}
+      </div>
+      <fieldset>
+        <legend className="field-label">Materials and finishes the patient may choose</legend>
+        <div className="space-y-2">
+          {materials.map((m) => {
+            const indicated = !toothInfo || m.toothClasses.includes(toothInfo.toothClass);
+            return (
+              <div key={m.id} className={`rounded-lg border border-line p-3 ${indicated ? "" : "opacity-60"}`}>
+                <p className="font-semibold">{m.name}{indicated ? "" : ` — not indicated for a ${toothInfo!.toothClass} tooth`}</p>
+                <div className="mt-1 flex flex-wrap gap-3">
+                  {m.modes.map((mode) => (
+                    <label key={mode} className="inline-flex min-h-10 items-center gap-2 text-sm">
+                      <input type="checkbox" className="size-5 accent-harbour-600" disabled={!indicated} checked={allowed[m.id]?.includes(mode) ?? false} onChange={(e) => toggle(m.id, mode, e.target.checked)} />
+                      {MODE_WORDS[mode].name}
+                    </label>
+                  ))}
+                </div>
+              </div>
+            );
+          })}
+        </div>
+        {errors.options ? <p className="field-error">{errors.options.message ?? errors.options.root?.message}</p> : null}
+      </fieldset>
+      <div>
+        <label htmlFor="fee" className="field-label">Fee (CAD)</label>
+        <input id="fee" inputMode="decimal" className="field-input" {...register("fee")} />
+        {errors.fee ? <p className="field-error">{errors.fee.message}</p> : null}
+      </div>
+      <div>
+        <label htmlFor="note" className="field-label">Note for the patient</label>
+        <textarea id="note" rows={3} className="field-input" {...register("note")} />
+        {errors.note ? <p className="field-error">{errors.note.message}</p> : null}
+      </div>
+      <button type="submit" className="btn-primary w-full" disabled={isSubmitting}>{isSubmitting ? "Saving…" : "Send proposal to the patient"}</button>
+    </form>
+  );
+}

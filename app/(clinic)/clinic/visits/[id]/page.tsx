@@ -1,0 +1,58 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { StatusBadge } from "@/components/visits/status-badge";
+import { VisitTimeline } from "@/components/visits/visit-timeline";
+import { Clinic, Material, Patient, User } from "@/db/models";
+import { requirePageUser, STAFF_ROLES } from "@/lib/auth/session";
+import { findVisitFor } from "@/lib/booking/transitions";
+import { getVisitTimeline } from "@/lib/data/visits";
+import { describeTooth } from "@/lib/domain/tooth";
+import { duration, MODE_WORDS, money, when } from "@/lib/format";
+import { AppError } from "@/lib/server/errors";
+
+export const metadata: Metadata = { title: "Visit" };
+
+export default async function ClinicVisitPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePageUser(STAFF_ROLES);
+  const { id } = await params;
+  const visit = await findVisitFor({ user }, id).catch((err) => {
+    if (err instanceof AppError && err.status === 404) notFound();
+    throw err;
+  });
+  const [clinic, material, patient, timeline] = await Promise.all([
+    Clinic.findByPk(visit.clinicId),
+    Material.findByPk(visit.materialId),
+    Patient.findByPk(visit.patientId, { include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
+    getVisitTimeline({ user, id }),
+  ]);
+  const zone = clinic!.timeZone;
+  const tooth = describeTooth(visit.tooth);
+  return (
+    <div className="space-y-5">
+      <p><Link href="/clinic">← Clinic</Link></p>
+      <header className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h1 className="text-2xl font-bold">{patient?.user?.name} · tooth {tooth.fdi}</h1>
+          <p className="text-ink-soft">{tooth.label}</p>
+        </div>
+        <StatusBadge status={visit.status} />
+      </header>
+      <section className="card" aria-labelledby="details">
+        <h2 id="details" className="text-lg font-semibold">Details</h2>
+        <dl className="mt-2 grid grid-cols-[7rem_1fr] gap-y-1 text-sm sm:grid-cols-[9rem_1fr]">
+          <dt className="text-ink-muted">Starts</dt><dd>{when(visit.startsAt, zone)}</dd>
+          <dt className="text-ink-muted">Length</dt><dd>{duration(Math.round((visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000))}</dd>
+          <dt className="text-ink-muted">Material</dt><dd>{material?.name} · {MODE_WORDS[visit.mode].name}</dd>
+          <dt className="text-ink-muted">Fee</dt><dd>{money(visit.feeCents, clinic!.currency)}</dd>
+          <dt className="text-ink-muted">Patient e-mail</dt><dd>{patient?.user?.email}</dd>
+          {visit.statusReason ? (<><dt className="text-ink-muted">Reason</dt><dd>{visit.statusReason}</dd></>) : null}
+        </dl>
+      </section>
+      <section className="card space-y-3" aria-labelledby="timeline">
+        <h2 id="timeline" className="text-lg font-semibold">Planned timeline</h2>
+        <VisitTimeline timeline={timeline} />
+      </section>
+    </div>
+  );
+}

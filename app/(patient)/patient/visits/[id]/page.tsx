@@ -1,0 +1,71 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { CautionsNote } from "@/components/cautions-note";
+import { PreVisitNotes } from "@/components/visits/pre-visit-notes";
+import { StatusBadge } from "@/components/visits/status-badge";
+import { VisitActions } from "@/components/visits/visit-actions";
+import { VisitTimeline } from "@/components/visits/visit-timeline";
+import { Clinic, Material } from "@/db/models";
+import { requirePageUser } from "@/lib/auth/session";
+import { getVisitTimeline } from "@/lib/data/visits";
+import { findVisitFor } from "@/lib/booking/transitions";
+import { withDefaults } from "@/lib/domain/clinic-settings";
+import { describeTooth } from "@/lib/domain/tooth";
+import { duration, MODE_WORDS, money, when } from "@/lib/format";
+import { AppError } from "@/lib/server/errors";
+
+export const metadata: Metadata = { title: "My visit" };
+
+export default async function PatientVisitPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePageUser(["patient"]);
+  const { id } = await params;
+  const visit = await findVisitFor({ user }, id).catch((err) => {
+    if (err instanceof AppError && err.status === 404) notFound();
+    throw err;
+  });
+  const [clinic, material, timeline] = await Promise.all([Clinic.findByPk(visit.clinicId), Material.findByPk(visit.materialId), getVisitTimeline({ user, id })]);
+  const zone = clinic!.timeZone;
+  const tooth = describeTooth(visit.tooth);
+  const minutes = Math.round((visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000);
+  const { cancelCutoffHours } = withDefaults(clinic!.settings);
+  const active = ["requested", "confirmed"].includes(visit.status);
+  const canChange = active && visit.startsAt.getTime() - Date.now() >= cancelCutoffHours * 3_600_000;
+
+  return (
+    <div className="mx-auto max-w-read space-y-5">
+      <p><Link href="/patient">← My crown</Link></p>
+      <header className="space-y-1">
+        <p className="text-sm font-semibold text-harbour-700">Tooth {tooth.fdi} · Universal {tooth.universal}</p>
+        <h1 className="text-2xl font-bold first-letter:uppercase">{tooth.words}</h1>
+        <StatusBadge status={visit.status} />
+      </header>
+      <section className="card" aria-labelledby="summary">
+        <h2 id="summary" className="sr-only">Summary</h2>
+        <dl className="grid grid-cols-[6.5rem_1fr] gap-y-1">
+          <dt className="text-ink-muted">Starts</dt><dd data-testid="visit-start">{when(visit.startsAt, zone)}</dd>
+          <dt className="text-ink-muted">Length</dt><dd>about {duration(minutes)}</dd>
+          <dt className="text-ink-muted">Material</dt><dd>{material?.name}</dd>
+          <dt className="text-ink-muted">Finish</dt><dd>{MODE_WORDS[visit.mode].name}</dd>
+          <dt className="text-ink-muted">Fee</dt><dd>{money(visit.feeCents, clinic!.currency)}</dd>
+          <dt className="text-ink-muted">Where</dt><dd>{clinic!.name}, {clinic!.address}</dd>
+        </dl>
+        {visit.statusReason ? <p className="mt-2 text-sm">Note from the clinic: {visit.statusReason}</p> : null}
+      </section>
+      {active ? (
+        <section className="space-y-2" aria-labelledby="change">
+          <h2 id="change" className="text-lg font-semibold">Change this visit</h2>
+          <VisitActions visitId={visit.id} proposalId={visit.proposalId} materialId={visit.materialId} mode={visit.mode} timezone={zone} canChange={canChange}
+            cutoffNote={`Changes online are possible until ${cancelCutoffHours} hours before the visit; after that, please call the clinic${clinic!.phone ? ` on ${clinic!.phone}` : ""}.`} />
+        </section>
+      ) : null}
+      {active ? <PreVisitNotes minutes={minutes} /> : null}
+      <section className="card space-y-3" aria-labelledby="plan">
+        <h2 id="plan" className="text-lg font-semibold">How the visit is planned</h2>
+        <p className="text-sm text-ink-soft">An estimate: your dentist may adjust it on the day.</p>
+        <VisitTimeline timeline={timeline} />
+      </section>
+      <CautionsNote />
+    </div>
+  );
+}
