@@ -3,10 +3,12 @@
 // message once, reminders fire at their time, and a dead mail server only delays delivery.
 import ICAL from "ical.js";
 import nodemailer from "nodemailer";
+import { PDFDocument } from "pdf-lib";
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Appointment, MailAttempt, MailOutbox, sequelize } from "@/db/models";
 import { drainMailOnce, stopBoss } from "@/lib/jobs/mail-queue";
+import { sendConsentCopy } from "@/lib/mail/consent-copy";
 import { deliverOutboxMessage } from "@/lib/mail/deliver";
 import { createTestClinic, type TestClinic } from "../support/fixtures";
 import { caughtAttachment, caughtFor, caughtSource, catcherUrl, changeVisit, createVisit, eventually, freePort, LocalCatcher } from "../support/mail";
@@ -197,6 +199,28 @@ describe.skipIf(!catcherUrl)("delivery through the mail catcher", () => {
     expect(rows.filter((r) => r.kind === "reminder").map((r) => [r.hoursBefore, r.state])).toEqual([[48, "skipped"], [2, "sent"]]);
     await eventually(async () => (await caughtFor(user.email)).length === 2);
     expect((await caughtFor(user.email)).filter((m) => m.subject.startsWith("Reminder:"))).toHaveLength(1);
+  });
+
+  it("sends the consent copy with its PDF attached, once per PDF", async () => {
+    const own = await createTestClinic({ timeZone: "America/Toronto" });
+    const { visit, user } = await createVisit(own, { startsAt: hoursFromNow(70) });
+    const doc = await PDFDocument.create();
+    doc.addPage().drawText("Consent copy for a test");
+    const pdf = Buffer.from(await doc.save());
+    const first = await sendConsentCopy({ appointmentId: visit.id, pdf, filename: "consent-copy.pdf" });
+    await sendConsentCopy({ appointmentId: visit.id, pdf, filename: "consent-copy.pdf" });
+    await drainMailOnce({ clinicId: own.clinic.id });
+    const copies = await eventually(async () => {
+      const m = (await caughtFor(user.email)).filter((x) => x.subject === "Your copy of your signed consent");
+      return m.length ? m : null;
+    });
+    await new Promise((r) => setTimeout(r, 300));
+    expect((await caughtFor(user.email)).filter((x) => x.subject === "Your copy of your signed consent")).toHaveLength(1);
+    expect(copies[0].attachments?.map((a) => [a.filename, a.contentType])).toEqual([["consent-copy.pdf", "application/pdf"]]);
+    const attached = await fetch(`${catcherUrl}/api/email/${copies[0].id}/attachment/${copies[0].attachments![0].generatedFileName}`).then((r) => r.arrayBuffer());
+    expect(Buffer.from(attached).equals(pdf)).toBe(true);
+    expect((await MailOutbox.findByPk(first.outboxId))!.state).toBe("sent");
+    await expect(sendConsentCopy({ appointmentId: visit.id, pdf: Buffer.from("not a pdf"), filename: "x.pdf" })).rejects.toThrow(/PDF/);
   });
 
   it("two workers delivering the same message at once send it once", async () => {
