@@ -131,7 +131,7 @@ describe("visit state changes", () => {
     expect(moved.status).toBe("confirmed");
     expect(moved.startsAt.toISOString()).toBe(later.toISOString());
     const chairRows = await Reservation.findAll({ where: { appointmentId: visit.id, resourceKind: "chair" }, order: [["id", "ASC"]] });
-    expect((chairRows[0].during as [{ value: Date }])[0].value.toISOString()).toBe(later.toISOString());
+    expect((chairRows[0].during as unknown as [{ value: Date }])[0].value.toISOString()).toBe(later.toISOString());
 
     // Within the 24 h cut-off the patient cannot cancel online; well before it they can.
     const lateNow = new Date(later.getTime() - 3 * 3_600_000);
