@@ -129,9 +129,12 @@ export const ELECTRONIC_RECORDS = {
 
 export type Block = { kind: "p"; text: string } | { kind: "list"; items: string[] };
 export type AssembledSection = { key: SectionKey; heading: string; blocks: Block[] };
+export type VisitRow = { label: string; value: string };
 export type AssembledConsent = {
   title: string;
   templateVersion: number;
+  /** The visit as the patient saw it: patient, tooth, material, mode, date, dentist, clinic. */
+  visit: VisitRow[];
   sections: AssembledSection[];
   electronicRecords: { version: string; heading: string; text: readonly string[] };
 };
@@ -144,6 +147,8 @@ export function fillPlaceholders(text: string, facts: VisitFacts): string {
   );
 }
 
+const oneLine = (text: string) => text.replace(/\s+/g, " ").trim();
+
 /** Paragraphs are separated by blank lines; a block whose lines all start with "- " is a list. */
 export function parseBlocks(body: string): Block[] {
   return body
@@ -153,9 +158,26 @@ export function parseBlocks(body: string): Block[] {
     .filter(Boolean)
     .map((chunk): Block => {
       const lines = chunk.split("\n").map((l) => l.trim()).filter(Boolean);
-      if (lines.every((l) => l.startsWith("- "))) return { kind: "list", items: lines.map((l) => l.slice(2).trim()) };
-      return { kind: "p", text: lines.join(" ") };
+      if (lines.every((l) => l.startsWith("- "))) return { kind: "list", items: lines.map((l) => oneLine(l.slice(2))) };
+      return { kind: "p", text: oneLine(lines.join(" ")) };
     });
+}
+
+export type VisitSummary = VisitFacts & { materialClass: number | null; dateOfBirth: string | null };
+
+/** The "Your visit" rows, in a fixed order. */
+export function visitRows(facts: VisitSummary): VisitRow[] {
+  const rows: VisitRow[] = [{ label: "Patient", value: facts.patient }];
+  if (facts.dateOfBirth) rows.push({ label: "Date of birth", value: facts.dateOfBirth });
+  rows.push(
+    { label: "Tooth (ISO 3950)", value: facts.tooth },
+    { label: "Material", value: facts.materialClass ? `${facts.material} (ISO 6872 class ${facts.materialClass})` : facts.material },
+    { label: "Finishing mode", value: facts.mode },
+    { label: "Visit", value: facts.date },
+    { label: "Dentist", value: facts.dentist },
+    { label: "Clinic", value: facts.clinic },
+  );
+  return rows.map((r) => ({ label: r.label, value: oneLine(r.value) }));
 }
 
 /** One visit's consent: the template's sections with the visit filled in and the material's cautions added. */
@@ -163,7 +185,7 @@ export function assembleConsent(input: {
   title: string;
   templateVersion: number;
   sections: TemplateSection[];
-  facts: VisitFacts;
+  facts: VisitSummary;
   materialCautions: readonly string[];
 }): AssembledConsent {
   const byKey = new Map(input.sections.map((s) => [s.key, s]));
@@ -172,32 +194,70 @@ export function assembleConsent(input: {
     if (!section) throw new Error(`The consent template has no "${key}" section.`);
     const blocks = parseBlocks(fillPlaceholders(section.body, input.facts));
     if (key === "material") {
-      const cautions = input.materialCautions.map((c) => c.trim()).filter(Boolean);
+      const cautions = input.materialCautions.map(oneLine).filter(Boolean);
       blocks.push(cautions.length ? { kind: "list", items: cautions } : { kind: "p", text: "Your dentist will explain this material's cautions chairside." });
     }
-    return { key, heading: fillPlaceholders(section.heading, input.facts), blocks };
+    return { key, heading: oneLine(fillPlaceholders(section.heading, input.facts)), blocks };
   });
   return {
-    title: fillPlaceholders(input.title, input.facts),
+    title: oneLine(fillPlaceholders(input.title, input.facts)),
     templateVersion: input.templateVersion,
+    visit: visitRows(input.facts),
     sections,
     electronicRecords: ELECTRONIC_RECORDS,
   };
 }
 
+const VISIT_HEADING = "Your visit";
+const VERSION_PREFIX = "Consent text version ";
+const RECORDS_RE = /^(.*) \(version ([^)]+)\)$/;
+
 /**
  * The canonical text of an assembled consent: exactly what the patient was shown, in a fixed
- * layout, Unicode NFC. Its SHA-256 is stored with the signature.
+ * plain-text layout ("# " title, "## " headings, "- " list items, blank lines between blocks),
+ * Unicode NFC. Its SHA-256 is stored with the signature, and parseConsentText reads it back,
+ * so every PDF of a consent is laid out from the very text that was signed.
  */
 export function consentText(doc: AssembledConsent): string {
-  const parts: string[] = [doc.title, `Consent text version ${doc.templateVersion}`];
+  const parts: string[] = [`# ${doc.title}`, `${VERSION_PREFIX}${doc.templateVersion}`];
+  parts.push(`## ${VISIT_HEADING}`, doc.visit.map((r) => `- ${r.label}: ${r.value}`).join("\n"));
   for (const s of doc.sections) {
-    parts.push(s.heading);
+    parts.push(`## ${s.heading}`);
     for (const b of s.blocks) parts.push(b.kind === "p" ? b.text : b.items.map((i) => `- ${i}`).join("\n"));
   }
-  parts.push(`${doc.electronicRecords.heading} (version ${doc.electronicRecords.version})`);
+  parts.push(`## ${doc.electronicRecords.heading} (version ${doc.electronicRecords.version})`);
   parts.push(...doc.electronicRecords.text);
   return parts.join("\n\n").normalize("NFC") + "\n";
+}
+
+/** Reads a canonical consent text back into its parts (the inverse of consentText). */
+export function parseConsentText(text: string): AssembledConsent {
+  const chunks = text.replace(/\n$/, "").split("\n\n");
+  const [titleLine, versionLine, ...rest] = chunks;
+  if (!titleLine?.startsWith("# ") || !versionLine?.startsWith(VERSION_PREFIX)) throw new Error("Not a consent text: the title or version line is missing.");
+  const groups: { heading: string; chunks: string[] }[] = [];
+  for (const chunk of rest) {
+    if (chunk.startsWith("## ")) groups.push({ heading: chunk.slice(3), chunks: [] });
+    else if (groups.length) groups[groups.length - 1].chunks.push(chunk);
+    else throw new Error("Not a consent text: text before the first heading.");
+  }
+  const visitGroup = groups.shift();
+  const recordsGroup = groups.pop();
+  const records = recordsGroup?.heading.match(RECORDS_RE);
+  if (visitGroup?.heading !== VISIT_HEADING || !records || groups.length !== SECTION_KEYS.length) {
+    throw new Error("Not a consent text: the visit, the sections or the records agreement are missing.");
+  }
+  const visit = (visitGroup.chunks[0] ?? "").split("\n").map((line) => {
+    const [label, ...value] = line.replace(/^- /, "").split(": ");
+    return { label, value: value.join(": ") };
+  });
+  return {
+    title: titleLine.slice(2),
+    templateVersion: Number(versionLine.slice(VERSION_PREFIX.length)),
+    visit,
+    sections: groups.map((g, i) => ({ key: SECTION_KEYS[i], heading: g.heading, blocks: g.chunks.flatMap((c) => parseBlocks(c)) })),
+    electronicRecords: { heading: records[1], version: records[2], text: recordsGroup!.chunks },
+  };
 }
 
 /** Problems that stop a template from being published (empty sections, unknown placeholders). */
@@ -220,6 +280,9 @@ export function templateProblems(input: { title: string; sections: TemplateSecti
     }
     if (!section.heading.trim()) problems.push({ field: `sections.${i}.heading`, message: "Every section needs a heading." });
     if (!section.body.trim()) problems.push({ field: `sections.${i}.body`, message: "Every section needs some text." });
+    const mixed = parseBlocks(section.body).some((b) => b.kind === "p" && b.text.startsWith("- "));
+    if (mixed) problems.push({ field: `sections.${i}.body`, message: "In a list, start every line with \"- \", and leave a blank line before and after it." });
+    if (/^\s*#/m.test(section.body)) problems.push({ field: `sections.${i}.body`, message: "A line cannot start with #: it is kept for headings." });
     check(`sections.${i}.heading`, section.heading);
     check(`sections.${i}.body`, section.body);
   });
