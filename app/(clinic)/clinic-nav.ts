@@ -7,6 +7,9 @@ export function clinicNav(role: Role): NavItem[] {
     { href: "/clinic", label: "Today", roles: ["reception", "dentist", "admin"] },
     { href: "/clinic/requests", label: "Requests", roles: ["reception", "admin"] },
     { href: "/clinic/patients", label: "Patients", roles: ["reception", "dentist", "admin"] },
+    { href: "/clinic/board", label: "Day board", roles: ["reception", "dentist"] },
+    { href: "/clinic/lots", label: "Lots", roles: ["reception", "dentist", "admin"] },
+    { href: "/clinic/settings", label: "Settings", roles: ["admin"] },
   ];
   return items.filter((i) => i.roles.includes(role)).map(({ href, label }) => ({ href, label }));
 }
