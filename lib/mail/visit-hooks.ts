@@ -51,6 +51,9 @@ export async function afterVisitUpdate(visit: Appointment, options: Options) {
       rows.push(message(visit, to === "declined" ? "visit_declined" : "visit_cancelled", { calendar: hadCalendar, sequence }));
     } else if (to === "completed") {
       rows.push(message(visit, "aftercare"));
+    } else if (moved && to === "requested") {
+      // Moved back to a request (the clinic must confirm the new time): tell the patient, no calendar yet.
+      rows.push(message(visit, "visit_moved", { calendar: false, sequence: 0, previousStartsAt: new Date(before!).toISOString() }));
     }
   } else if (moved && ACTIVE.includes(to)) {
     const hasCalendar = to !== "requested";
