@@ -17,13 +17,10 @@ import { SignInAttempt } from "./sign-in-attempt";
 import { User } from "./user";
 import { registerVisitMailHooks } from "@/lib/mail/visit-hooks";
 
-declare global {
-  var __cuspalAssociated: boolean | undefined;
-}
-
-if (!globalThis.__cuspalAssociated) {
-  globalThis.__cuspalAssociated = true;
-
+// Next bundles pages and route handlers into separate module graphs, each with its own copy of
+// the model classes; so whether this is done is read from this copy's classes, not from a
+// process-wide flag (a copy loaded second would otherwise have no associations or model hooks).
+if (!Object.hasOwn(User.associations, "patient")) {
   // A bulk update or destroy without a where clause would touch every row: refuse it.
   const guard = (options: { where?: unknown }) => {
     const where = options.where as Record<string | symbol, unknown> | undefined;
