@@ -5,7 +5,7 @@ import { existsSync, readFileSync, rmSync, mkdirSync } from "node:fs";
 import path from "node:path";
 import {
   appEnv, bin, dataDir, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, mustRun,
-  run, say, startMailCatcher, startStorage, stopPostgres, stopService,
+  run, say, startMailCatcher, startService, startStorage, stopPostgres, stopService,
 } from "./lib.mjs";
 
 const [only, ...extra] = process.argv.slice(2);
@@ -54,6 +54,8 @@ try {
   if (wantE2e) {
     say("Loading the demo clinic into the test database…");
     if (run(bin("tsx"), ["db/seed.ts", "--reset"], { env }) !== 0) throw new Error("Loading the demo clinic failed.");
+    // The worker sends the e-mail the browser tests cause (confirmations, reminders), as in the demo.
+    await startService("test-worker", bin("tsx"), ["lib/jobs/worker-main.ts"], { env });
     say("Building the app for the browser tests…");
     if (run(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } }) !== 0) {
       throw new Error("next build failed; see its output above.");
@@ -76,6 +78,7 @@ try {
   totals.failed += 1;
   broken = true;
 } finally {
+  stopService("test-worker");
   stopService("test-mail-catcher");
   stopService("test-storage");
   if (startedPg) stopPostgres();
