@@ -38,7 +38,8 @@ cert.serialNumber = "01" + forge.util.bytesToHex(forge.random.getBytesSync(15));
 cert.validity.notBefore = new Date(Date.now() - 24 * 3600 * 1000);
 cert.validity.notAfter = new Date(Date.now() + 10 * 365 * 24 * 3600 * 1000);
 const subject = [
-  { name: "commonName", value: forge.util.encodeUtf8(COMMON_NAME), valueTagClass: forge.asn1.Type.UTF8 },
+  // forge encodes a UTF8String value itself (x509.js), so the name goes in as plain text.
+  { name: "commonName", value: COMMON_NAME, valueTagClass: forge.asn1.Type.UTF8 },
   { name: "organizationName", value: "Alder Bay Dental Studio (invented demo clinic)" },
   { name: "countryName", value: "CA" },
 ] as forge.pki.CertificateField[];

@@ -146,6 +146,12 @@ class Writer {
     this.gap(3);
   }
 
+  /** A label with a long unbroken value (a fingerprint) on its own full-width line. */
+  fingerprint(label: string, value: string) {
+    this.text(label, { size: 9.5, bold: true, color: MUTED, after: 0 });
+    this.text(value, { size: 9, after: 4 });
+  }
+
   /** A flag in a tinted box with its level spelled out, so it does not rely on colour. */
   flag(flag: ConsentFlag) {
     const size = 10.5;
@@ -261,10 +267,10 @@ export async function buildConsentPdf(input: ConsentPdfInput): Promise<PDFDocume
   }
   w.rule();
   w.heading("Fingerprints", 12);
-  w.row("Consent text SHA-256", input.textSha256);
+  w.fingerprint("Consent text SHA-256", input.textSha256);
+  if (input.previous) w.fingerprint(`PDF version ${input.previous.version} SHA-256`, input.previous.sha256);
   w.row("Consent text version", String(d.templateVersion));
   w.row("Records agreement", `version ${d.electronicRecords.version}`);
-  if (input.previous) w.row(`PDF version ${input.previous.version} SHA-256`, input.previous.sha256);
   w.row("Review", input.review ? `Reviewed by ${input.review.by}, ${input.review.at}` : "Not reviewed yet (the dentist reviews it before treatment starts).");
   w.gap(6);
   w.text(

@@ -26,12 +26,11 @@ export type VisitContext = {
 };
 
 export async function loadVisitContext(visit: Appointment, transaction?: Transaction): Promise<VisitContext> {
-  const [clinic, material, patient, dentist] = await Promise.all([
-    Clinic.findByPk(visit.clinicId, { transaction }),
-    Material.findByPk(visit.materialId, { transaction }),
-    Patient.findByPk(visit.patientId, { transaction, include: [{ model: User, as: "user" }] }),
-    User.findByPk(visit.dentistId, { transaction }),
-  ]);
+  // One after another: queries in a transaction share one connection.
+  const clinic = await Clinic.findByPk(visit.clinicId, { transaction });
+  const material = await Material.findByPk(visit.materialId, { transaction });
+  const patient = await Patient.findByPk(visit.patientId, { transaction, include: [{ model: User, as: "user" }] });
+  const dentist = await User.findByPk(visit.dentistId, { transaction });
   if (!clinic || !material || !patient?.user || !dentist) throw new Error(`Visit ${visit.id} is missing its clinic, material, patient or dentist.`);
   return { visit, clinic, material, patient, patientUser: patient.user, dentist };
 }
@@ -189,10 +188,12 @@ async function auditLines(consent: Consent, timeZone: string, transaction: Trans
       const actor = e.actorUserId ? actors.get(e.actorUserId) : undefined;
       let event = EVENT_WORDS[e.action];
       if (e.action === "consent.viewed" && views.length > 1) event += e === views[0] ? ` (first of ${views.length} openings)` : ` (latest of ${views.length} openings)`;
+      // The signature and the review carry the record's own times; the event is written in the same transaction.
+      const at = e.action === "consent.signed" && consent.signedAt ? consent.signedAt : e.action === "consent.reviewed" && consent.reviewedAt ? consent.reviewedAt : e.at;
       return {
         event,
         who: actor ? `${actor.name ?? actor.email} (${actor.role === "admin" ? "clinic manager" : actor.role})` : "the portal",
-        at: `${formatInZone(e.at, timeZone)} · ${e.at.toISOString()}`,
+        at: `${formatInZone(at, timeZone)} · ${at.toISOString()}`,
         ip: e.ip ?? "not recorded",
         userAgent: e.userAgent ?? "not recorded",
       };
