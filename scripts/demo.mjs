@@ -15,6 +15,7 @@ const env = { ...process.env, ...appEnv(ports) };
 
 say("Migrating the database…");
 mustRun(bin("tsx"), ["db/migrate.ts", "up"], { env });
+mustRun(bin("tsx"), ["scripts/make-seal-certificate.ts"], { env }, "Creating the clinic seal certificate");
 say("Loading the demo clinic (kept if already there)…");
 mustRun(bin("tsx"), ["db/seed.ts"], { env });
 

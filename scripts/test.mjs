@@ -31,6 +31,7 @@ mkdirSync(reportDir, { recursive: true });
 
 say("Migrating the test database…");
 mustRun(bin("tsx"), ["db/migrate.ts", "up"], { env });
+mustRun(bin("tsx"), ["scripts/make-seal-certificate.ts"], { env }, "Creating the clinic seal certificate");
 await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort, name: "test-mail-catcher" });
 await startStorage({ port: ports.s3Port, name: "test-storage" });
 
