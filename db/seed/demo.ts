@@ -1,6 +1,7 @@
 // Loads the whole demo: the clinic (demo-clinic.ts), then each area's demo records.
 import { Clinic, sequelize } from "@/db/models";
 import { seedClinic } from "./demo-clinic";
+import { seedConsents } from "./demo-consents";
 import { seedProposals } from "./demo-proposals";
 
 export async function resetDatabase() {
@@ -18,6 +19,7 @@ export async function seedDemo({ reset = false, now = new Date() } = {}): Promis
     const demo = await seedClinic(transaction);
     const { visits } = await seedProposals(demo, transaction, now);
     void visits; // handed to the consent and day-board seeders below
+    await seedConsents(visits, transaction, now);
   });
   return "loaded";
 }
