@@ -1,0 +1,148 @@
+// Availability over 14 days at a clinic with 3 chairs, 2 mills, 1 furnace and 300 existing visits,
+// and 50 concurrent bookings of the same slot through the HTTP API.
+import { performance } from "node:perf_hooks";
+import { Appointment, Clinic, Equipment, Material, OpeningHour, Patient, Proposal, ProposalMaterial, User, sequelize } from "@/db/models";
+import { seedCatalogue } from "@/db/seed/demo-clinic";
+import { loadBusy, loadResources, loadRules, loadTimeline } from "@/lib/booking/context";
+import { writeSchedule } from "@/lib/booking/schedule";
+import { searchSlots } from "@/lib/booking/search";
+import { findSlots } from "@/lib/domain/availability";
+import { addDays, localDate, zonedTime } from "@/lib/domain/time-zone";
+import { benchEnv, freshDatabase, ms, run, sessionCookie, startApp, stats, stopApp } from "./support";
+
+const DB = "cuspal_bench";
+const PORT = 3290;
+const MIN = 60_000;
+
+async function seedBenchClinic() {
+  const clinic = await Clinic.create({ name: "Bench clinic", slug: "bench", timeZone: "America/Toronto", address: "1 Bench Row", phone: null, settings: { minNoticeMinutes: 0 } });
+  await seedCatalogue(clinic.id);
+  await OpeningHour.bulkCreate([1, 2, 3, 4, 5, 6].flatMap((weekday) => [
+    { clinicId: clinic.id, weekday, opens: "07:00", closes: "12:30" },
+    { clinicId: clinic.id, weekday, opens: "13:00", closes: "20:00" },
+  ]));
+  await Equipment.bulkCreate([
+    ...["Chair 1", "Chair 2", "Chair 3"].map((name) => ({ clinicId: clinic.id, kind: "chair" as const, name })),
+    { clinicId: clinic.id, kind: "mill", name: "Mill A" }, { clinicId: clinic.id, kind: "mill", name: "Mill B" },
+    { clinicId: clinic.id, kind: "furnace", name: "Furnace 1" },
+  ]);
+  const dentists = await Promise.all(Array.from({ length: 4 }, (_, i) => User.create({ email: `bench-dentist-${i}@cuspal.test`, name: `Bench dentist ${i}`, role: "dentist", clinicId: clinic.id, passwordHash: null, emailVerified: null })));
+  const zr = (await Material.findOne({ where: { clinicId: clinic.id, key: "zirconia" } }))!;
+  const feld = (await Material.findOne({ where: { clinicId: clinic.id, key: "feldspathic-ceramic" } }))!;
+  return { clinic, dentists, zr, feld };
+}
+
+async function makePatient(clinicId: string, i: number) {
+  const user = await User.create({ email: `bench-patient-${i}@cuspal.test`, name: `Bench patient ${i}`, role: "patient", clinicId, passwordHash: null, emailVerified: null });
+  const patient = await Patient.create({ userId: user.id, clinicId, dateOfBirth: null, phone: null });
+  return { user, patient };
+}
+
+export async function run300(): Promise<Record<string, string | number>> {
+  const env = benchEnv(DB, PORT);
+  await freshDatabase(DB);
+  Object.assign(process.env, { DATABASE_URL: env.DATABASE_URL });
+  run(`${process.cwd()}/node_modules/.bin/tsx`, ["db/migrate.ts", "up"], env);
+
+  const { clinic, dentists, zr, feld } = await seedBenchClinic();
+  const now = new Date();
+  const from = addDays(localDate(now, clinic.timeZone), 1);
+
+  // 300 visits placed on the first free slots over the coming weeks, alternating dentists and materials.
+  let placed = 0;
+  for (let i = 0; placed < 300 && i < 2000; i++) {
+    const dentist = dentists[i % dentists.length];
+    const material = i % 3 === 0 ? feld : zr;
+    const { patient } = await makePatient(clinic.id, i);
+    const proposal = await Proposal.create({ clinicId: clinic.id, patientId: patient.id, dentistId: dentist.id, tooth: 36 - (i % 2) * 21, feeCents: 100000, note: null });
+    await ProposalMaterial.create({ proposalId: proposal.id, materialId: material.id, modes: ["rapid"] });
+    const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: material.id, mode: "rapid", tooth: proposal.tooth });
+    const rules = await loadRules(clinic);
+    const resources = await loadResources(clinic.id, dentist.id);
+    const busy = await loadBusy({ clinicId: clinic.id, resources, from: zonedTime(from, "00:00", clinic.timeZone), to: zonedTime(addDays(from, 30), "00:00", clinic.timeZone) });
+    const slot = findSlots({ timeline, rules, resources, busy, from, days: 28, now }).find((_, k) => k % 7 === i % 7) ?? null;
+    if (!slot) continue;
+    await sequelize.transaction(async (transaction) => {
+      const a = await Appointment.create({
+        clinicId: clinic.id, proposalId: proposal.id, patientId: patient.id, dentistId: dentist.id, materialId: material.id, mode: "rapid", tooth: proposal.tooth,
+        status: "confirmed", startsAt: slot.start, endsAt: new Date(slot.start.getTime() + timeline.totalMinutes * MIN),
+        chairId: slot.assignment.chair!, millId: slot.assignment.mill!, furnaceId: slot.assignment.furnace, feeCents: 100000, createdBy: null,
+      }, { transaction });
+      await writeSchedule({ appointment: a, timeline, start: slot.start, assignment: slot.assignment, bufferMinutes: rules.bufferMinutes, transaction });
+    });
+    placed++;
+  }
+
+  // The measured proposal: zirconia standard for a molar with the first dentist.
+  const { user: benchUser, patient } = await makePatient(clinic.id, 9999);
+  const proposal = await Proposal.create({ clinicId: clinic.id, patientId: patient.id, dentistId: dentists[0].id, tooth: 36, feeCents: 100000, note: null });
+  await ProposalMaterial.create({ proposalId: proposal.id, materialId: zr.id, modes: ["standard"] });
+
+  const compute: number[] = [];
+  const pure: number[] = [];
+  let slotCount = 0;
+  const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: zr.id, mode: "standard", tooth: 36 });
+  const rules = await loadRules(clinic);
+  const resources = await loadResources(clinic.id, dentists[0].id);
+  const busy = await loadBusy({ clinicId: clinic.id, resources, from: zonedTime(from, "00:00", clinic.timeZone), to: zonedTime(addDays(from, 15), "00:00", clinic.timeZone) });
+  for (let i = 0; i < 30; i++) {
+    let t = performance.now();
+    const r = await searchSlots({ proposal, materialId: zr.id, mode: "standard", from, days: 14, now });
+    compute.push(performance.now() - t);
+    slotCount = r.slots.length;
+    t = performance.now();
+    findSlots({ timeline, rules, resources, busy, from, days: 14, now });
+    pure.push(performance.now() - t);
+  }
+
+  // Through the route handler, over HTTP, against `next start`.
+  const app = await startApp(env, PORT);
+  try {
+    const cookie = await sessionCookie({ id: benchUser.id, email: benchUser.email, name: benchUser.name, role: "patient", clinicId: clinic.id }, env.NEXTAUTH_SECRET!);
+    const http: number[] = [];
+    for (let i = 0; i < 30; i++) {
+      const t = performance.now();
+      const res = await fetch(`http://localhost:${PORT}/api/proposals/${proposal.id}/availability?materialId=${zr.id}&mode=standard&from=${from}&days=14`, { headers: { cookie } });
+      await res.json();
+      if (!res.ok) throw new Error(`availability returned ${res.status}`);
+      http.push(performance.now() - t);
+    }
+
+    // 50 patients, each with a proposal, all asking for the same start at once.
+    const racers = [];
+    for (let i = 0; i < 50; i++) {
+      const { user, patient: p } = await makePatient(clinic.id, 10_000 + i);
+      const prop = await Proposal.create({ clinicId: clinic.id, patientId: p.id, dentistId: dentists[1].id, tooth: 11, feeCents: 100000, note: null });
+      await ProposalMaterial.create({ proposalId: prop.id, materialId: feld.id, modes: ["rapid"] });
+      racers.push({ cookie: await sessionCookie({ id: user.id, email: user.email, name: user.name, role: "patient", clinicId: clinic.id }, env.NEXTAUTH_SECRET!), proposalId: prop.id });
+    }
+    const free = await (await fetch(`http://localhost:${PORT}/api/proposals/${racers[0].proposalId}/availability?materialId=${feld.id}&mode=rapid&from=${from}&days=14`, { headers: { cookie: racers[0].cookie } })).json();
+    const start = free.slots[0].start;
+    const latencies: number[] = [];
+    const statuses = await Promise.all(racers.map(async (r) => {
+      const t = performance.now();
+      const res = await fetch(`http://localhost:${PORT}/api/appointments`, { method: "POST", headers: { cookie: r.cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: r.proposalId, materialId: feld.id, mode: "rapid", start }) });
+      await res.text();
+      latencies.push(performance.now() - t);
+      return res.status;
+    }));
+    const count = (s: number) => statuses.filter((x) => x === s).length;
+    const s = stats(latencies);
+    return {
+      "existing visits": placed,
+      "availability: slots found (14 days)": slotCount,
+      "availability: DB load + compute, median": ms(stats(compute).median),
+      "availability: DB load + compute, p95": ms(stats(compute).p95),
+      "availability: pure computation, median": ms(stats(pure).median),
+      "availability: full HTTP request, median": ms(stats(http).median),
+      "availability: full HTTP request, p95": ms(stats(http).p95),
+      "50 concurrent bookings: 201": count(201),
+      "50 concurrent bookings: 409": count(409),
+      "50 concurrent bookings: 5xx": statuses.filter((x) => x >= 500).length,
+      "50 concurrent bookings: p95 latency": ms(s.p95),
+      "50 concurrent bookings: max latency": ms(s.max),
+    };
+  } finally {
+    stopApp(app);
+  }
+}

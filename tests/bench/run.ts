@@ -1,0 +1,36 @@
+// `npm run bench`: runs each benchmark and prints its figures in a small table.
+// Needs PostgreSQL on 127.0.0.1:54329 (`npm run db:start`); builds the app into .next-bench once.
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { sequelize } from "@/db/sequelize";
+
+type Bench = { name: string; run: () => Promise<Record<string, string | number>> };
+
+async function benches(): Promise<Bench[]> {
+  const list: Bench[] = [{ name: "Availability and concurrent booking", run: (await import("./booking")).run300 }];
+  if (existsSync(path.join(import.meta.dirname, "reminders.ts"))) {
+    list.push({ name: "Reminder scheduling and delivery", run: (await import("./reminders" as string)).run });
+  }
+  return list;
+}
+
+async function main() {
+  let failed = false;
+  for (const bench of await benches()) {
+    console.log(`\n${bench.name}`);
+    try {
+      const figures = await bench.run();
+      const width = Math.max(...Object.keys(figures).map((k) => k.length));
+      console.log(`${"figure".padEnd(width)} | value`);
+      console.log(`${"-".repeat(width)}-|-${"-".repeat(12)}`);
+      for (const [k, v] of Object.entries(figures)) console.log(`${k.padEnd(width)} | ${v}`);
+    } catch (err) {
+      failed = true;
+      console.error(`  failed: ${err instanceof Error ? err.stack : err}`);
+    }
+  }
+  await sequelize.close().catch(() => undefined);
+  process.exit(failed ? 1 : 0);
+}
+
+void main();
