@@ -83,9 +83,11 @@ function verifySeal(pdf: Buffer): { digestOk: boolean; signatureOk: boolean; sig
   expect(a).toBe(0);
   expect(c + d).toBe(pdf.length); // the seal covers the whole file except its own contents
   const signedBytes = Buffer.concat([pdf.subarray(a, a + b), pdf.subarray(c, c + d)]);
-  const hex = pdf.subarray(a + b + 1, c - 1).toString("latin1").replace(/0+$/, "");
-  const der = Buffer.from(hex.length % 2 ? hex + "0" : hex, "hex");
-  const asn1 = forge.asn1.fromDer(forge.util.createBuffer(der.toString("binary")), { parseAllBytes: false });
+  // /Contents is the DER in hex, padded with zeros to the placeholder's size.
+  const der = Buffer.from(pdf.subarray(a + b + 1, c - 1).toString("latin1"), "hex");
+  // forge accepts an options object here; its type declarations only know the older boolean.
+  const fromDer = forge.asn1.fromDer as unknown as (bytes: forge.util.ByteStringBuffer, options: { parseAllBytes: boolean }) => forge.asn1.Asn1;
+  const asn1 = fromDer(forge.util.createBuffer(der.toString("binary")), { parseAllBytes: false });
   const content = (asn1.value as forge.asn1.Asn1[])[1].value as forge.asn1.Asn1[];
   const signedData = content[0].value as forge.asn1.Asn1[];
   const certs = signedData.find((n) => n.tagClass === forge.asn1.Class.CONTEXT_SPECIFIC && n.type === 0)!.value as forge.asn1.Asn1[];
