@@ -8,8 +8,10 @@ export function clinicNav(role: Role): NavItem[] {
     { href: "/clinic/requests", label: "Requests", roles: ["reception", "admin"] },
     { href: "/clinic/patients", label: "Patients", roles: ["reception", "dentist", "admin"] },
     { href: "/clinic/board", label: "Day board", roles: ["reception", "dentist"] },
+    { href: "/clinic/consents", label: "Consents", roles: ["reception", "dentist", "admin"] },
     { href: "/clinic/lots", label: "Lots", roles: ["reception", "dentist", "admin"] },
     { href: "/clinic/settings", label: "Settings", roles: ["admin"] },
+    { href: "/clinic/consent-templates", label: "Consent texts", roles: ["admin"] },
   ];
   return items.filter((i) => i.roles.includes(role)).map(({ href, label }) => ({ href, label }));
 }
