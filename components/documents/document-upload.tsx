@@ -97,7 +97,7 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-describedby={`${ids}-rules`}>
       <p id={`${ids}-rules`} className="text-sm text-ink-soft">
-        Photos (JPEG, PNG or WebP) or PDF files, up to 15 MB. Location data is removed from photos before they are stored.
+        Photos (JPEG, PNG or WebP) or PDF files, up to 15&nbsp;MB. Location data is removed from photos before they are stored.
       </p>
 
       <div>
@@ -146,7 +146,12 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
           <label htmlFor={`${ids}-progress`} className="text-sm font-semibold">
             Uploading {state.percent === null ? "…" : `${state.percent} %`}
           </label>
-          <progress id={`${ids}-progress`} className="block h-3 w-full accent-harbour-600" max={100} value={state.percent ?? undefined} />
+          <progress
+            id={`${ids}-progress`}
+            className="block h-3 w-full overflow-hidden rounded-full [&::-moz-progress-bar]:bg-harbour-600 [&::-webkit-progress-bar]:bg-paper-deep [&::-webkit-progress-value]:bg-harbour-600"
+            max={100}
+            value={state.percent ?? undefined}
+          />
         </div>
       ) : null}
       <div aria-live="polite">
