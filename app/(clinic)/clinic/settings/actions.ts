@@ -1,0 +1,60 @@
+"use server";
+
+// Server actions of the settings forms. Each one checks the admin role itself, parses the input
+// again with the form's schema (inside lib/data/settings.ts) and returns a typed state, never throws.
+import { revalidatePath } from "next/cache";
+import { headers } from "next/headers";
+import { ZodError } from "zod";
+import { requireUser } from "@/lib/auth/session";
+import * as settings from "@/lib/data/settings";
+import { AppError } from "@/lib/server/errors";
+
+export type ActionState = { ok: true; message: string } | { ok: false; message: string; fieldErrors?: Record<string, string> };
+
+async function asAdmin<T>(work: (actor: settings.Actor) => Promise<T>, done: string, path: string): Promise<ActionState> {
+  try {
+    const user = await requireUser(["admin"]);
+    const h = await headers();
+    const actor = { user, ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown", userAgent: h.get("user-agent") ?? "unknown" };
+    await work(actor);
+    revalidatePath(path);
+    return { ok: true, message: done };
+  } catch (err) {
+    if (err instanceof ZodError) {
+      const fieldErrors: Record<string, string> = {};
+      for (const issue of err.issues) fieldErrors[issue.path.join(".")] ??= issue.message;
+      return { ok: false, message: err.issues[0]?.message ?? "Check the form.", fieldErrors };
+    }
+    if (err instanceof AppError) return { ok: false, message: err.message, ...(err.field ? { fieldErrors: { [err.field]: err.message } } : {}) };
+    console.error("Settings action failed:", err instanceof Error ? err.stack : err);
+    return { ok: false, message: "Something went wrong on our side. Please try again." };
+  }
+}
+
+export async function saveOpeningHoursAction(input: unknown) {
+  return asAdmin((a) => settings.saveOpeningHours(a, input), "Opening hours saved.", "/clinic/settings/hours");
+}
+export async function addClosedDayAction(input: unknown) {
+  return asAdmin((a) => settings.addClosedDay(a, input), "Closed day added.", "/clinic/settings/hours");
+}
+export async function removeClosedDayAction(id: number) {
+  return asAdmin((a) => settings.removeClosedDay(a, Number(id)), "Closed day removed.", "/clinic/settings/hours");
+}
+export async function saveEquipmentAction(input: unknown) {
+  return asAdmin((a) => settings.saveEquipment(a, input), "Equipment saved.", "/clinic/settings/equipment");
+}
+export async function saveStageDurationsAction(input: unknown) {
+  return asAdmin((a) => settings.saveStageDurations(a, input), "Stage durations saved. New bookings use them; booked visits keep their plan.", "/clinic/settings/durations");
+}
+export async function saveMaterialModesAction(input: unknown) {
+  return asAdmin((a) => settings.saveMaterialModes(a, input), "Material minutes saved. New bookings use them; booked visits keep their plan.", "/clinic/settings/durations");
+}
+export async function saveBookingSettingsAction(input: unknown) {
+  return asAdmin((a) => settings.saveBookingSettings(a, input), "Booking and reminder settings saved.", "/clinic/settings/booking");
+}
+export async function createStaffAction(input: unknown) {
+  return asAdmin((a) => settings.createStaffAccount(a, input), "Staff account created. Give them the password in person.", "/clinic/settings/staff");
+}
+export async function updateStaffAction(input: unknown) {
+  return asAdmin((a) => settings.updateStaffAccount(a, input), "Staff account updated.", "/clinic/settings/staff");
+}
