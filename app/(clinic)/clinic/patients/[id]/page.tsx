@@ -5,6 +5,7 @@ import { requirePageUser, STAFF_ROLES } from "@/lib/auth/session";
 import { findClinicPatient, type PatientSummary } from "@/lib/data/patient-directory";
 import { AppError } from "@/lib/server/errors";
 import { PatientDocuments } from "./patient-documents";
+import { PatientBlocks } from "./patient-blocks";
 
 export const metadata: Metadata = { title: "Patient" };
 
@@ -31,6 +32,7 @@ export default async function PatientPage({ params }: { params: Promise<{ id: st
         </dl>
       </div>
       <PatientDocuments patientId={patient.id} />
+      <PatientBlocks clinicId={user.clinicId!} patientId={patient.id} />
     </div>
   );
 }

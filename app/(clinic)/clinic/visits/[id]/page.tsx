@@ -10,6 +10,8 @@ import { getVisitTimeline } from "@/lib/data/visits";
 import { describeTooth } from "@/lib/domain/tooth";
 import { duration, MODE_WORDS, money, when } from "@/lib/format";
 import { AppError } from "@/lib/server/errors";
+import { VisitBlocks } from "./visit-blocks";
+import { VisitProgress } from "./visit-progress";
 
 export const metadata: Metadata = { title: "Visit" };
 
@@ -52,6 +54,16 @@ export default async function ClinicVisitPage({ params }: { params: Promise<{ id
       <section className="card space-y-3" aria-labelledby="timeline">
         <h2 id="timeline" className="text-lg font-semibold">Planned timeline</h2>
         <VisitTimeline timeline={timeline} />
+      </section>
+      {["confirmed", "checked_in", "in_progress", "completed"].includes(visit.status) ? (
+        <section className="card space-y-3" aria-labelledby="progress">
+          <h2 id="progress" className="text-lg font-semibold">Progress</h2>
+          <VisitProgress visitId={visit.id} canMark={["dentist", "reception"].includes(user.role)} />
+        </section>
+      ) : null}
+      <section className="card space-y-3" aria-labelledby="blocks">
+        <h2 id="blocks" className="text-lg font-semibold">Crown block</h2>
+        <VisitBlocks visitId={visit.id} clinicId={visit.clinicId} zone={zone} canRecord={["dentist", "reception"].includes(user.role)} open={["confirmed", "checked_in", "in_progress", "completed"].includes(visit.status)} />
       </section>
     </div>
   );
