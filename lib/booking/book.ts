@@ -6,7 +6,7 @@ import { Appointment, AppointmentStage, Clinic, Proposal, ProposalMaterial, Rese
 import { assertCanSee } from "@/lib/data/access";
 import { allowedOption } from "@/lib/data/proposals";
 import type { SessionUser } from "@/lib/auth/session";
-import { assign, holdsFor, isCandidateStart, nearest } from "@/lib/domain/availability";
+import { assign, holdsFor, isCandidateStart, nearest, type AvailabilityRules } from "@/lib/domain/availability";
 import type { Timeline } from "@/lib/domain/timeline";
 import { addDays, isoInZone, localDate } from "@/lib/domain/time-zone";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
@@ -24,15 +24,20 @@ export type Actor = { user: SessionUser; ip?: string; userAgent?: string };
 class SlotTaken extends Error {}
 
 /** Finds free resources for `start` inside the transaction, or throws SlotTaken / a 4xx. */
-async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
-  const rules = await loadRules(opts.clinic, opts.transaction);
-  if (opts.start.getTime() <= opts.now.getTime()) throw badRequest("That time has already passed. Pick a time in the future.", "start");
-  if (!isCandidateStart(rules, opts.timeline.totalMinutes, opts.start, opts.now)) {
+/** Refuses past, off-grid and out-of-hours starts with a 400 before anything else is looked at. */
+function assertBookableTime(rules: AvailabilityRules, timeline: Timeline, start: Date, now: Date) {
+  if (start.getTime() <= now.getTime()) throw badRequest("That time has already passed. Pick a time in the future.", "start");
+  if (!isCandidateStart(rules, timeline.totalMinutes, start, now)) {
     throw badRequest(
       `That is not a bookable start time: visits start on the ${rules.slotMinutes}-minute grid, inside opening hours, at least ${Math.round(rules.minNoticeMinutes / 60)} hours ahead, and must end before closing.`,
       "start",
     );
   }
+}
+
+async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
+  const rules = await loadRules(opts.clinic, opts.transaction);
+  assertBookableTime(rules, opts.timeline, opts.start, opts.now);
   const resources = await loadResources(opts.clinic.id, opts.proposal.dentistId, opts.transaction);
   const busy = await loadBusy({
     clinicId: opts.clinic.id,
@@ -68,6 +73,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
   allowedOption(p, opts.materialId, opts.mode);
   const clinic = (await Clinic.findByPk(p.clinicId))!;
   const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
+  assertBookableTime(await loadRules(clinic), timeline, opts.start, now);
 
   for (let attempt = 1; ; attempt++) {
     try {

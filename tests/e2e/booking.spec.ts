@@ -21,6 +21,7 @@ async function signedInPage(browser: Browser, email: string, viewport = { width:
 
 test.describe("booking a crown visit", () => {
   test("the demo patient books from a phone, reception confirms, and the database holds the reservations", async ({ browser }) => {
+    test.setTimeout(180_000);
     const page = await signedInPage(browser, "patient@cuspal.test");
     await expect(page).toHaveURL(/\/patient$/);
     await page.getByRole("link", { name: "Compare and book" }).first().click();

@@ -9,6 +9,8 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.getByLabel("E-mail", { exact: true }).fill(email);
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Sign in", exact: true }).click();
+  // With the right password, wait until the portal has loaded so the session cookie is set.
+  if (password === DEMO_PASSWORD) await page.waitForURL(/\/(patient|clinic)(\/|$)/);
 }
 
 /** axe-core over the page with the WCAG 2.x A/AA rules; no violations allowed. */
