@@ -15,26 +15,33 @@ export type VisitWhen = {
   line: string;
 };
 
-function part(instant: Date, zone: string, opts: Intl.DateTimeFormatOptions, type: Intl.DateTimeFormatPartTypes): string {
-  return new Intl.DateTimeFormat("en-GB", { timeZone: zone, ...opts }).formatToParts(instant).find((p) => p.type === type)?.value ?? "";
+// Building an Intl.DateTimeFormat is the expensive part; the worker formats thousands of times.
+const formats = new Map<string, Intl.DateTimeFormat>();
+function format(locale: string, zone: string, opts: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  const key = `${locale}|${zone}|${JSON.stringify(opts)}`;
+  let f = formats.get(key);
+  if (!f) formats.set(key, (f = new Intl.DateTimeFormat(locale, { timeZone: zone, ...opts })));
+  return f;
+}
+
+function zonePart(instant: Date, locale: string, zone: string, style: "long" | "short"): string {
+  return format(locale, zone, { timeZoneName: style }).formatToParts(instant).find((p) => p.type === "timeZoneName")?.value ?? "";
 }
 
 export function clockTime(instant: Date, zone: string): string {
-  return new Intl.DateTimeFormat("en-GB", { timeZone: zone, hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(instant);
+  return format("en-GB", zone, { hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(instant);
 }
 
 export function longDate(instant: Date, zone: string): string {
   // en-GB gives "Monday 15 March 2027" (weekday, day, month, year) without commas.
-  return new Intl.DateTimeFormat("en-GB", { timeZone: zone, weekday: "long", day: "numeric", month: "long", year: "numeric" })
-    .format(instant)
-    .replace(",", "");
+  return format("en-GB", zone, { weekday: "long", day: "numeric", month: "long", year: "numeric" }).format(instant).replace(",", "");
 }
 
 export function zoneNames(instant: Date, zone: string): { long: string; short: string } {
   return {
-    long: part(instant, zone, { timeZoneName: "long" }, "timeZoneName") || zone,
+    long: zonePart(instant, "en-GB", zone, "long") || zone,
     // en-US knows the North American abbreviations (EST/EDT); other zones fall back to "GMT+1" style.
-    short: new Intl.DateTimeFormat("en-US", { timeZone: zone, timeZoneName: "short" }).formatToParts(instant).find((p) => p.type === "timeZoneName")?.value ?? zone,
+    short: zonePart(instant, "en-US", zone, "short") || zone,
   };
 }
 
@@ -48,6 +55,6 @@ export function visitWhen(startsAt: Date, endsAt: Date, zone: string): VisitWhen
 
 /** "Mon 15 Mar, 10:00 EDT" for subject lines. */
 export function shortWhen(instant: Date, zone: string): string {
-  const d = new Intl.DateTimeFormat("en-GB", { timeZone: zone, weekday: "short", day: "numeric", month: "short" }).format(instant).replace(",", "");
+  const d = format("en-GB", zone, { weekday: "short", day: "numeric", month: "short" }).format(instant).replace(",", "");
   return `${d}, ${clockTime(instant, zone)} ${zoneNames(instant, zone).short}`;
 }

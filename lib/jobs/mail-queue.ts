@@ -21,8 +21,15 @@ declare global {
 export function getBoss({ supervise = false }: { supervise?: boolean } = {}): Promise<PgBoss> {
   globalThis.__cuspalBoss ??= (async () => {
     if (!process.env.DATABASE_URL) throw new Error("DATABASE_URL is not set.");
+    // The same database as the Sequelize instance, whatever the environment says now: the
+    // outbox and the jobs must live side by side for the hand-over transaction to mean anything.
+    const c = sequelize.config;
     const boss = new PgBoss({
-      connectionString: process.env.DATABASE_URL,
+      host: c.host,
+      port: Number(c.port),
+      database: c.database,
+      user: c.username,
+      password: c.password ?? undefined,
       max: Number(process.env.BOSS_POOL_MAX ?? 4),
       application_name: "cuspal-mail",
       supervise,
@@ -102,6 +109,8 @@ export async function processReady(opts: ProcessOptions = {}): Promise<ProcessTa
   const tally: ProcessTally = { sent: 0, skipped: 0, duplicate: 0, gone: 0, failed: 0 };
   const jobs = await boss.fetch<{ outboxId: string }>(MAIL_QUEUE, { batchSize: opts.batchSize ?? 20, includeMetadata: true });
   const queue = [...jobs];
+  const finished: string[] = [];
+  const retry: string[] = [];
   const run = async () => {
     for (let job = queue.shift(); job; job = queue.shift()) {
       try {
@@ -112,15 +121,22 @@ export async function processReady(opts: ProcessOptions = {}): Promise<ProcessTa
           now: opts.now,
         });
         tally[result] += 1;
-        await boss.complete(MAIL_QUEUE, job.id, { result });
+        finished.push(job.id);
       } catch (err) {
         tally.failed += 1;
-        // pg-boss schedules the retry (exponential backoff) or marks the job failed after the last one.
-        await boss.fail(MAIL_QUEUE, job.id, { message: err instanceof Error ? err.name : "error" });
+        retry.push(job.id);
+        // Ids and error codes only: SMTP messages can quote addresses.
+        const e = err as { name?: string; code?: string };
+        if (e.name !== "SendInProgress") console.error(`Mail job ${job.id} failed: ${e.name ?? "Error"}${e.code ? ` (${e.code})` : ""}`);
       }
     }
   };
   await Promise.all(Array.from({ length: Math.min(opts.concurrency ?? 4, jobs.length) }, run));
+  // One call for the batch (outcomes are in mail_attempts). A crash before this point leaves the
+  // jobs active; pg-boss expires and retries them, and the idempotency keys make that a no-op.
+  if (finished.length) await boss.complete(MAIL_QUEUE, finished);
+  // pg-boss schedules each retry with exponential backoff, or marks the job failed after the last.
+  if (retry.length) await boss.fail(MAIL_QUEUE, retry);
   return tally;
 }
 

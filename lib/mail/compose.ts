@@ -35,7 +35,7 @@ export type OutboxRow = {
   attachment: Buffer | null;
 };
 
-type VisitRow = {
+export type VisitRow = {
   id: string;
   status: AppointmentStatus;
   startsAt: Date;
@@ -51,6 +51,10 @@ type VisitRow = {
   email: string;
   patientName: string | null;
   materialName: string;
+  /** Due times of this visit's other live reminders for the same start (to drop a superseded one). */
+  otherReminderDueAts: Date[] | null;
+  /** The latest calendar SEQUENCE sent for this visit (reminders repeat it). */
+  latestSequence: number | null;
 };
 
 export type ComposedMail = {
@@ -65,44 +69,62 @@ export type ComposedMail = {
 
 export type Composition = { skip: string } | { mail: ComposedMail };
 
-export async function loadVisit(appointmentId: string): Promise<VisitRow | null> {
-  const [row] = await sequelize.query<VisitRow>(
-    `SELECT a.id, a.status, a.starts_at AS "startsAt", a.ends_at AS "endsAt", a.tooth, a.reminders_enabled AS "remindersEnabled",
-            a.status_reason AS "statusReason", c.name AS "clinicName", c.address AS "clinicAddress", c.phone AS "clinicPhone",
-            c.time_zone AS "timeZone", c.settings->'reminderHoursBefore' AS "reminderHoursSetting",
-            u.email, u.name AS "patientName", m.name AS "materialName"
-       FROM appointments a
-       JOIN clinics c ON c.id = a.clinic_id
-       JOIN patients p ON p.id = a.patient_id
-       JOIN users u ON u.id = p.user_id
-       JOIN materials m ON m.id = a.material_id
-      WHERE a.id = $1`,
-    { bind: [appointmentId], type: QueryTypes.SELECT },
+/** The outbox row and the visit as it is now, in one round trip. */
+export async function loadMessage(outboxId: string): Promise<{ row: OutboxRow & { state: string }; visit: VisitRow | null } | null> {
+  const [r] = await sequelize.query<OutboxRow & { state: string; visit: VisitRow | null }>(
+    `SELECT o.id, o.appointment_id AS "appointmentId", o.kind, o.hours_before AS "hoursBefore", o.visit_starts_at AS "visitStartsAt",
+            o.idempotency_key AS "idempotencyKey", o.due_at AS "dueAt", o.data, o.attachment, o.state,
+            (SELECT json_build_object(
+               'id', a.id, 'status', a.status, 'startsAt', a.starts_at, 'endsAt', a.ends_at, 'tooth', a.tooth,
+               'remindersEnabled', a.reminders_enabled, 'statusReason', a.status_reason,
+               'clinicName', c.name, 'clinicAddress', c.address, 'clinicPhone', c.phone, 'timeZone', c.time_zone,
+               'reminderHoursSetting', c.settings->'reminderHoursBefore', 'email', u.email, 'patientName', u.name, 'materialName', m.name,
+               'otherReminderDueAts', (SELECT json_agg(x.due_at) FROM mail_outbox x
+                  WHERE x.appointment_id = a.id AND x.kind = 'reminder' AND x.visit_starts_at = o.visit_starts_at
+                    AND x.id <> o.id AND x.state IN ('pending', 'queued', 'sent')),
+               'latestSequence', (SELECT max((x.data->>'sequence')::int) FROM mail_outbox x
+                  WHERE x.appointment_id = a.id AND x.kind IN ('visit_confirmed', 'visit_moved') AND (x.data->>'calendar')::boolean))
+               FROM appointments a
+               JOIN clinics c ON c.id = a.clinic_id
+               JOIN patients p ON p.id = a.patient_id
+               JOIN users u ON u.id = p.user_id
+               JOIN materials m ON m.id = a.material_id
+              WHERE a.id = o.appointment_id) AS visit
+       FROM mail_outbox o WHERE o.id = $1`,
+    { bind: [outboxId], type: QueryTypes.SELECT },
   );
-  return row ?? null;
+  if (!r) return null;
+  const { visit, ...row } = r;
+  if (!visit) return { row, visit: null };
+  // json_build_object hands back timestamps as text.
+  return {
+    row,
+    visit: {
+      ...visit,
+      startsAt: new Date(visit.startsAt),
+      endsAt: new Date(visit.endsAt),
+      otherReminderDueAts: visit.otherReminderDueAts?.map((d) => new Date(d)) ?? null,
+    },
+  };
 }
 
 /** Why a message is no longer worth sending at `now`, or null when it still is. */
-async function staleReason(row: OutboxRow, visit: VisitRow, now: Date): Promise<string | null> {
+function staleReason(row: OutboxRow, visit: VisitRow, now: Date): string | null {
   const sameTime = visit.startsAt.getTime() === new Date(row.visitStartsAt).getTime();
+  const state = visit.status.replace("_", " ");
   switch (row.kind) {
     case "visit_requested":
       return visit.status === "requested" ? null : "The request was answered before this e-mail went out.";
     case "visit_confirmed":
-      return ["confirmed", "checked_in", "in_progress"].includes(visit.status) ? null : `The visit is ${visit.status.replace("_", " ")} now.`;
+      return ["confirmed", "checked_in", "in_progress"].includes(visit.status) ? null : `The visit is ${state} now.`;
     case "visit_moved":
-      if (!["requested", "confirmed"].includes(visit.status)) return `The visit is ${visit.status.replace("_", " ")} now.`;
+      if (!["requested", "confirmed"].includes(visit.status)) return `The visit is ${state} now.`;
       return sameTime ? null : "The visit moved again; a newer message covers it.";
     case "reminder": {
-      if (visit.status !== "confirmed") return `The visit is ${visit.status.replace("_", " ")} now.`;
+      if (visit.status !== "confirmed") return `The visit is ${state} now.`;
       if (!visit.remindersEnabled) return "The patient turned reminders off.";
       if (!sameTime) return "The visit moved; its reminders were replaced.";
-      const [later] = await sequelize.query<{ dueAts: Date[] | null }>(
-        `SELECT array_agg(due_at) AS "dueAts" FROM mail_outbox
-          WHERE appointment_id = $1 AND kind = 'reminder' AND visit_starts_at = $2 AND id <> $3 AND state IN ('pending', 'queued', 'sent')`,
-        { bind: [row.appointmentId, row.visitStartsAt, row.id], type: QueryTypes.SELECT },
-      );
-      const useful = reminderStillUseful({ dueAt: new Date(row.dueAt), visitStartsAt: visit.startsAt }, (later?.dueAts ?? []).map((d) => new Date(d)), now);
+      const useful = reminderStillUseful({ dueAt: new Date(row.dueAt), visitStartsAt: visit.startsAt }, visit.otherReminderDueAts ?? [], now);
       return useful ? null : "Too late to be useful: the visit has started or a later reminder is due.";
     }
     default:
@@ -120,17 +142,9 @@ function messageId(key: string): string {
   return `<${createHash("sha256").update(key).digest("hex").slice(0, 40)}@${domain}>`;
 }
 
-async function calendarAttachment(row: OutboxRow, visit: VisitRow, cancelled: boolean): Promise<Attachment> {
-  let sequence = Number(row.data.sequence ?? 0);
-  if (row.kind === "reminder") {
-    // A reminder carries the latest copy of the visit, so it uses the latest sequence number.
-    const [r] = await sequelize.query<{ s: number | null }>(
-      `SELECT max((data->>'sequence')::int) AS s FROM mail_outbox
-        WHERE appointment_id = $1 AND kind IN ('visit_confirmed', 'visit_moved') AND (data->>'calendar')::boolean`,
-      { bind: [row.appointmentId], type: QueryTypes.SELECT },
-    );
-    sequence = r?.s ?? 0;
-  }
+function calendarAttachment(row: OutboxRow, visit: VisitRow, cancelled: boolean): Attachment {
+  // A reminder carries the latest copy of the visit, so it repeats the latest sequence number.
+  const sequence = row.kind === "reminder" ? (visit.latestSequence ?? 0) : Number(row.data.sequence ?? 0);
   const content = visitCalendar({
     appointmentId: visit.id,
     startsAt: visit.startsAt,
@@ -146,10 +160,10 @@ async function calendarAttachment(row: OutboxRow, visit: VisitRow, cancelled: bo
   return { filename: "crown-visit.ics", content, contentType: "text/calendar; charset=utf-8; method=PUBLISH" };
 }
 
-export async function composeMail(row: OutboxRow, now = new Date()): Promise<Composition> {
-  const visit = await loadVisit(row.appointmentId);
+/** The message for an outbox row, built from the visit as it is now (no database access). */
+export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = new Date()): Promise<Composition> {
   if (!visit) return { skip: "The visit no longer exists." };
-  const stale = await staleReason(row, visit, now);
+  const stale = staleReason(row, visit, now);
   if (stale) return { skip: stale };
 
   const base = (process.env.APP_URL ?? "http://localhost:3000").replace(/\/$/, "");
@@ -178,7 +192,7 @@ export async function composeMail(row: OutboxRow, now = new Date()): Promise<Com
       const hours = reminderHours(visit.reminderHoursSetting).filter((h) => visit.startsAt.getTime() - h * 3_600_000 > now.getTime());
       element = createElement(VisitConfirmedEmail, { ...props, reminderText: visit.remindersEnabled && hours.length ? listHours(hours) : null });
       subject = `Confirmed: your crown visit on ${at}`;
-      attachments.push(await calendarAttachment(row, visit, false));
+      attachments.push(calendarAttachment(row, visit, false));
       break;
     }
     case "visit_moved": {
@@ -191,7 +205,7 @@ export async function composeMail(row: OutboxRow, now = new Date()): Promise<Com
         hasCalendar,
       });
       subject = `New time: your crown visit is now on ${at}`;
-      if (hasCalendar) attachments.push(await calendarAttachment(row, visit, false));
+      if (hasCalendar) attachments.push(calendarAttachment(row, visit, false));
       break;
     }
     case "visit_declined":
@@ -200,13 +214,13 @@ export async function composeMail(row: OutboxRow, now = new Date()): Promise<Com
       const hasCalendar = Boolean(row.data.calendar);
       element = createElement(VisitEndedEmail, { ...props, outcome, reason: visit.statusReason, hasCalendar });
       subject = outcome === "declined" ? `Your requested crown visit on ${at} could not be confirmed` : `Cancelled: your crown visit on ${at}`;
-      if (hasCalendar) attachments.push(await calendarAttachment(row, visit, true));
+      if (hasCalendar) attachments.push(calendarAttachment(row, visit, true));
       break;
     }
     case "reminder": {
       element = createElement(ReminderEmail, { ...props, leadText: timeUntilWords(now, visit.startsAt), turnOffUrl: reminderLink(visit.id) });
       subject = `Reminder: your crown visit on ${at}`;
-      attachments.push(await calendarAttachment(row, visit, false));
+      attachments.push(calendarAttachment(row, visit, false));
       // One-click opt-out from the mail program itself (RFC 8058): a POST, never a GET.
       headers["List-Unsubscribe"] = `<${reminderOneClickUrl(visit.id)}>`;
       headers["List-Unsubscribe-Post"] = "List-Unsubscribe=One-Click";

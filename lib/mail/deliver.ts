@@ -5,7 +5,7 @@ import { QueryTypes } from "sequelize";
 import type { Transporter } from "nodemailer";
 import { sequelize } from "@/db/sequelize";
 import type { AttemptOutcome } from "@/db/models/mail";
-import { composeMail, type OutboxRow } from "./compose";
+import { composeMail, loadMessage, type OutboxRow } from "./compose";
 import { mailFrom, mailTransport } from "./transport";
 
 /** How long a claim protects a send in progress; a crashed worker's claim is taken over after it. */
@@ -36,8 +36,9 @@ async function logAttempt(row: { id: string; appointmentId: string }, attempt: n
   );
 }
 
-async function finish(row: OutboxRow, state: "sent" | "skipped" | "failed", reason: string | null) {
-  await sequelize.query(`UPDATE mail_outbox SET state = $2, state_reason = $3, updated_at = now() WHERE id = $1`, {
+/** Ends a queued row (never overwrites an outcome another worker already wrote). */
+async function finish(row: OutboxRow, state: "skipped" | "failed", reason: string | null) {
+  await sequelize.query(`UPDATE mail_outbox SET state = $2, state_reason = $3, updated_at = now() WHERE id = $1 AND state = 'queued'`, {
     bind: [row.id, state, reason],
   });
 }
@@ -51,20 +52,16 @@ function describeError(err: unknown): string {
 
 export async function deliverOutboxMessage(outboxId: string, opts: DeliverOptions): Promise<DeliveryResult> {
   const now = opts.now ?? new Date();
-  const [row] = await sequelize.query<OutboxRow & { state: string }>(
-    `SELECT id, appointment_id AS "appointmentId", kind, hours_before AS "hoursBefore", visit_starts_at AS "visitStartsAt",
-            idempotency_key AS "idempotencyKey", due_at AS "dueAt", data, attachment, state
-       FROM mail_outbox WHERE id = $1`,
-    { bind: [outboxId], type: QueryTypes.SELECT },
-  );
-  if (!row) return "gone";
+  const loaded = await loadMessage(outboxId);
+  if (!loaded) return "gone";
+  const { row, visit } = loaded;
   if (row.state === "cancelled") {
     await logAttempt(row, opts.attempt, "skipped", "Withdrawn before it was sent.");
     return "skipped";
   }
   if (row.state !== "queued") return "duplicate";
 
-  const composed = await composeMail(row, now);
+  const composed = await composeMail(row, visit, now);
   if ("skip" in composed) {
     await finish(row, "skipped", composed.skip);
     await logAttempt(row, opts.attempt, "skipped", composed.skip);
@@ -120,16 +117,15 @@ export async function deliverOutboxMessage(outboxId: string, opts: DeliverOption
     throw err;
   }
 
-  await sequelize.transaction(async (transaction) => {
-    await sequelize.query(`UPDATE mail_sends SET state = 'sent', sent_at = now(), lease_until = NULL, message_id = $2 WHERE idempotency_key = $1`, {
-      bind: [row.idempotencyKey, smtpId ?? mail.messageId],
-      transaction,
-    });
-    await sequelize.query(`UPDATE mail_outbox SET state = 'sent', state_reason = NULL, updated_at = now() WHERE id = $1`, { bind: [row.id], transaction });
-    await sequelize.query(`INSERT INTO mail_attempts (outbox_id, appointment_id, attempt, outcome, detail) VALUES ($1, $2, $3, 'sent', NULL)`, {
-      bind: [row.id, row.appointmentId, opts.attempt],
-      transaction,
-    });
-  });
+  // One statement, so the key, the outbox row and the log entry change together.
+  await sequelize.query(
+    `WITH s AS (
+       UPDATE mail_sends SET state = 'sent', sent_at = now(), lease_until = NULL, message_id = $2 WHERE idempotency_key = $1 RETURNING 1
+     ), o AS (
+       UPDATE mail_outbox SET state = 'sent', state_reason = NULL, updated_at = now() WHERE id = $3 RETURNING 1
+     )
+     INSERT INTO mail_attempts (outbox_id, appointment_id, attempt, outcome, detail) VALUES ($3, $4, $5, 'sent', NULL)`,
+    { bind: [row.idempotencyKey, smtpId ?? mail.messageId, row.id, row.appointmentId, opts.attempt] },
+  );
   return "sent";
 }
