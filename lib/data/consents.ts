@@ -368,3 +368,11 @@ export async function publishTemplateVersion({ user, values, ip, userAgent }: { 
   });
   return { ok: true, version };
 }
+
+/** The live consent's status for a visit this user may see (null when they may not see the visit). */
+export async function consentStatusForVisit({ user, appointmentId }: { user: SessionUser; appointmentId: string }) {
+  const visit = await visitFor(user, appointmentId);
+  if (!visit) return null;
+  const live = await liveConsent(visit.id);
+  return { status: (live?.status ?? "pending") as ConsentStatus, consentId: live?.id ?? null, flags: live && live.status !== "pending" ? live.flags.length : 0, open: OPEN_STATUSES.includes(visit.status) };
+}

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { ConsentLink } from "@/components/consent/consent-link";
 import { StatusBadge } from "@/components/visits/status-badge";
 import { VisitTimeline } from "@/components/visits/visit-timeline";
 import { Clinic, Material, Patient, User } from "@/db/models";
@@ -51,6 +52,7 @@ export default async function ClinicVisitPage({ params }: { params: Promise<{ id
           {visit.statusReason ? (<><dt className="text-ink-muted">Reason</dt><dd>{visit.statusReason}</dd></>) : null}
         </dl>
       </section>
+      <ConsentLink user={user} visitId={visit.id} />
       <section className="card space-y-3" aria-labelledby="timeline">
         <h2 id="timeline" className="text-lg font-semibold">Planned timeline</h2>
         <VisitTimeline timeline={timeline} />

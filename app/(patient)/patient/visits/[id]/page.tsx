@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { CautionsNote } from "@/components/cautions-note";
+import { ConsentLink } from "@/components/consent/consent-link";
 import { PreVisitNotes } from "@/components/visits/pre-visit-notes";
 import { StatusBadge } from "@/components/visits/status-badge";
 import { VisitActions } from "@/components/visits/visit-actions";
@@ -59,6 +60,7 @@ export default async function PatientVisitPage({ params }: { params: Promise<{ i
             cutoffNote={`Changes online are possible until ${cancelCutoffHours} hours before the visit; after that, please call the clinic${clinic!.phone ? ` on ${clinic!.phone}` : ""}.`} />
         </section>
       ) : null}
+      <ConsentLink user={user} visitId={visit.id} />
       {active ? <PreVisitNotes minutes={minutes} /> : null}
       <section className="card space-y-3" aria-labelledby="plan">
         <h2 id="plan" className="text-lg font-semibold">How the visit is planned</h2>

@@ -1,0 +1,23 @@
+"use server";
+
+import { headers } from "next/headers";
+import { requireUser } from "@/lib/auth/session";
+import { publishTemplateVersion, type PublishResult } from "@/lib/data/consents";
+import { AppError } from "@/lib/server/errors";
+
+/** Publishes the edited consent text as a new version (clinic manager only). */
+export async function publishTemplate(values: unknown): Promise<PublishResult> {
+  try {
+    const user = await requireUser(["admin"]);
+    const h = await headers();
+    return await publishTemplateVersion({
+      user,
+      values,
+      ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown",
+      userAgent: h.get("user-agent") ?? "unknown",
+    });
+  } catch (err) {
+    if (err instanceof AppError) return { ok: false, error: err.message };
+    throw err;
+  }
+}
