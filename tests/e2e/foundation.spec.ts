@@ -62,3 +62,39 @@ test("health endpoint reports the database", async ({ request }) => {
   expect(res.status()).toBe(200);
   expect(await res.json()).toEqual({ ok: true, db: "up" });
 });
+
+test("a patient signs in with an e-mailed link from the mail catcher", async ({ page }) => {
+  const catcher = process.env.MAIL_CATCHER_URL;
+  expect(catcher, "MAIL_CATCHER_URL is set by npm test").toBeTruthy();
+  const since = Date.now();
+  await page.goto("/sign-in");
+  await page.getByLabel("Your e-mail").fill("patient@cuspal.test");
+  await page.getByRole("button", { name: "E-mail me a sign-in link" }).click();
+  await expect(page).toHaveURL(/\/sign-in\/check-mail/);
+
+  let link: string | undefined;
+  for (let i = 0; i < 40 && !link; i++) {
+    const mails = (await (await page.request.get(`${catcher}/api/email`)).json()) as { subject: string; time: string; to: { address: string }[]; text?: string; html?: string }[];
+    const mail = mails.reverse().find((m) => m.subject === "Your Cuspal sign-in link" && m.to.some((t) => t.address === "patient@cuspal.test") && new Date(m.time).getTime() >= since - 2000);
+    link = mail?.text?.match(/https?:\/\/\S+\/api\/auth\/callback\/email\S+/)?.[0];
+    if (!link) await page.waitForTimeout(250);
+  }
+  expect(link).toBeTruthy();
+  await page.goto(link!.replace(/[)\]>]+$/, ""));
+  await expect(page).toHaveURL(/\/patient$/);
+  await expect(page.getByTestId("signed-in-name")).toHaveText("Zoë Halvorsen-Ruiz");
+});
+
+test("asking for a link for a staff or unknown address shows the same page and sends nothing", async ({ page }) => {
+  const catcher = process.env.MAIL_CATCHER_URL!;
+  const before = ((await (await page.request.get(`${catcher}/api/email`)).json()) as { to: { address: string }[] }[]).length;
+  for (const email of ["reception@cuspal.test", "nobody-here@cuspal.test"]) {
+    await page.goto("/sign-in");
+    await page.getByLabel("Your e-mail").fill(email);
+    await page.getByRole("button", { name: "E-mail me a sign-in link" }).click();
+    await expect(page).toHaveURL(/\/sign-in\/check-mail/);
+  }
+  await page.waitForTimeout(500);
+  const mails = (await (await page.request.get(`${catcher}/api/email`)).json()) as { to: { address: string }[] }[];
+  expect(mails.slice(before).filter((m) => m.to.some((t) => ["reception@cuspal.test", "nobody-here@cuspal.test"].includes(t.address)))).toEqual([]);
+});
