@@ -4,7 +4,7 @@ import nextTypescript from "eslint-config-next/typescript";
 const config = [
   ...nextCoreWebVitals,
   ...nextTypescript,
-  { ignores: [".next/**", ".data/**", "node_modules/**", "test-results/**", "playwright-report/**", "next-env.d.ts"] },
+  { ignores: [".next/**", ".next-*/**", ".data/**", "node_modules/**", "test-results/**", "playwright-report/**", "next-env.d.ts"] },
 ];
 
 export default config;

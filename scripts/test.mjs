@@ -48,8 +48,14 @@ try {
       totals.passed += r.numPassedTests;
       totals.failed += r.numFailedTests;
       totals.skipped += r.numPendingTests + r.numTodoTests;
-      if (status !== 0 && r.numFailedTests === 0) (totals.failed += 1), (broken = true);
-    } else if (status !== 0) (totals.failed += 1), (broken = true);
+      if (status !== 0 && r.numFailedTests === 0) {
+        totals.failed += 1;
+        broken = true;
+      }
+    } else if (status !== 0) {
+      totals.failed += 1;
+      broken = true;
+    }
   }
 
   if (wantE2e) {
@@ -71,8 +77,14 @@ try {
       totals.passed += s.expected + (s.flaky ?? 0);
       totals.failed += s.unexpected;
       totals.skipped += s.skipped;
-      if (status !== 0 && s.unexpected === 0) (totals.failed += 1), (broken = true);
-    } else if (status !== 0) (totals.failed += 1), (broken = true);
+      if (status !== 0 && s.unexpected === 0) {
+        totals.failed += 1;
+        broken = true;
+      }
+    } else if (status !== 0) {
+      totals.failed += 1;
+      broken = true;
+    }
   }
 } catch (err) {
   console.error(err instanceof Error ? err.message : err);

@@ -47,13 +47,18 @@ export async function declineVisit(actor: Actor, id: string, reason: string) {
   return change(actor, id, ["requested"], "declined", "visit.declined", reason);
 }
 
+/** Whether a patient may still change a visit online (before the clinic's cut-off). */
+export function patientMayChange(visit: Pick<Appointment, "status" | "startsAt">, cancelCutoffHours: number, now = new Date()): boolean {
+  return ["requested", "confirmed"].includes(visit.status) && visit.startsAt.getTime() - now.getTime() >= cancelCutoffHours * 3_600_000;
+}
+
 /** Patients may cancel or move their own visit up to the clinic's cut-off; staff at any time before it starts. */
 async function assertPatientMayChange(actor: Actor, visit: Appointment, now: Date) {
   if (actor.user.role !== "patient") return;
   const clinic = await Clinic.findByPk(visit.clinicId);
   if (!clinic) throw notFound("That clinic");
   const { cancelCutoffHours } = withDefaults(clinic.settings);
-  if (visit.startsAt.getTime() - now.getTime() < cancelCutoffHours * 3_600_000) {
+  if (!patientMayChange(visit, cancelCutoffHours, now)) {
     throw conflict(`Changes online close ${cancelCutoffHours} hours before the visit. Please call the clinic${clinic.phone ? ` on ${clinic.phone}` : ""}.`);
   }
 }

@@ -2,11 +2,13 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { signInSchema, type SignInInput, SIGN_IN_FAILED } from "@/lib/auth/schemas";
 
 export function SignInForm() {
+  const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
   const { errors, isSubmitting } = formState;
@@ -18,7 +20,8 @@ export function SignInForm() {
       setMessage(result?.error && result.error !== "CredentialsSignin" ? result.error : SIGN_IN_FAILED);
       return;
     }
-    window.location.assign("/portal");
+    router.replace("/portal");
+    router.refresh();
   });
 
   return (

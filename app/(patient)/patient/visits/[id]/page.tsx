@@ -10,7 +10,7 @@ import { VisitTimeline } from "@/components/visits/visit-timeline";
 import { Clinic, Material } from "@/db/models";
 import { requirePageUser } from "@/lib/auth/session";
 import { getVisitTimeline } from "@/lib/data/visits";
-import { findVisitFor } from "@/lib/booking/transitions";
+import { findVisitFor, patientMayChange } from "@/lib/booking/transitions";
 import { withDefaults } from "@/lib/domain/clinic-settings";
 import { describeTooth } from "@/lib/domain/tooth";
 import { duration, MODE_WORDS, money, when } from "@/lib/format";
@@ -31,7 +31,7 @@ export default async function PatientVisitPage({ params }: { params: Promise<{ i
   const minutes = Math.round((visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000);
   const { cancelCutoffHours } = withDefaults(clinic!.settings);
   const active = ["requested", "confirmed"].includes(visit.status);
-  const canChange = active && visit.startsAt.getTime() - Date.now() >= cancelCutoffHours * 3_600_000;
+  const canChange = patientMayChange(visit, cancelCutoffHours);
 
   return (
     <div className="mx-auto max-w-read space-y-5">
