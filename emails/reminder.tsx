@@ -29,7 +29,7 @@ export default function ReminderEmail(props: VisitMailProps & { leadText: string
         items={[
           "Eat a normal meal beforehand. Your mouth will probably be numb for a few hours afterwards, which makes eating awkward.",
           "Expect numbness: the local anaesthetic usually wears off within a few hours. Plan an easy time afterwards.",
-          `Allow the whole visit: about ${lengthWords} in the chair, while your crown is designed and made. Arrive 10 minutes early to check in.`,
+          `Allow the whole visit: about ${lengthWords} in the chair, while your crown is designed and made. Plan to arrive a few minutes early to check in.`,
           "Bring a list of the medicines you take (including blood thinners and supplements), and tell us about any change in your health.",
           `If you feel unwell (fever, cold or flu, a new health problem) or cannot come, call the clinic${phone} before the visit, and we will find another time.`,
         ]}

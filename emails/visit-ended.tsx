@@ -21,7 +21,7 @@ export default function VisitEndedEmail(props: VisitMailProps & { outcome: "decl
           ? "The clinic could not confirm the visit you asked for, so that time is not booked."
           : "The visit below is cancelled and the time is no longer held for you."}
       </Text>
-      {reason ? <Text>Reason given by the clinic: {reason}</Text> : null}
+      {reason ? <Text>Reason given: {reason}</Text> : null}
       <VisitDetails {...props} />
       {hasCalendar ? <Text>The attached calendar file (crown-visit.ics) marks the visit as cancelled in your calendar.</Text> : null}
       <Text>Your crown proposal stays open: you can choose another time in the portal whenever you are ready.</Text>

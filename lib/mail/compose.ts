@@ -37,6 +37,7 @@ export type OutboxRow = {
 
 export type VisitRow = {
   id: string;
+  proposalId: string;
   status: AppointmentStatus;
   startsAt: Date;
   endsAt: Date;
@@ -75,7 +76,7 @@ export async function loadMessage(outboxId: string): Promise<{ row: OutboxRow & 
     `SELECT o.id, o.appointment_id AS "appointmentId", o.kind, o.hours_before AS "hoursBefore", o.visit_starts_at AS "visitStartsAt",
             o.idempotency_key AS "idempotencyKey", o.due_at AS "dueAt", o.data, o.attachment, o.state,
             (SELECT json_build_object(
-               'id', a.id, 'status', a.status, 'startsAt', a.starts_at, 'endsAt', a.ends_at, 'tooth', a.tooth,
+               'id', a.id, 'proposalId', a.proposal_id, 'status', a.status, 'startsAt', a.starts_at, 'endsAt', a.ends_at, 'tooth', a.tooth,
                'remindersEnabled', a.reminders_enabled, 'statusReason', a.status_reason,
                'clinicName', c.name, 'clinicAddress', c.address, 'clinicPhone', c.phone, 'timeZone', c.time_zone,
                'reminderHoursSetting', c.settings->'reminderHoursBefore', 'email', u.email, 'patientName', u.name, 'materialName', m.name,
@@ -175,7 +176,7 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
     toothWords: describeTooth(visit.tooth).words,
     materialName: visit.materialName,
     lengthWords: durationWords((visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000),
-    visitUrl: `${base}/patient`,
+    visitUrl: `${base}/patient/visits/${visit.id}`,
   };
   const at = shortWhen(visit.startsAt, visit.timeZone);
   const attachments: Attachment[] = [];
@@ -212,7 +213,8 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
     case "visit_cancelled": {
       const outcome = row.kind === "visit_declined" ? "declined" : "cancelled";
       const hasCalendar = Boolean(row.data.calendar);
-      element = createElement(VisitEndedEmail, { ...props, outcome, reason: visit.statusReason, hasCalendar });
+      // "Choose another time" leads back to the crown proposal, which stays open.
+      element = createElement(VisitEndedEmail, { ...props, visitUrl: `${base}/patient/proposals/${visit.proposalId}`, outcome, reason: visit.statusReason, hasCalendar });
       subject = outcome === "declined" ? `Your requested crown visit on ${at} could not be confirmed` : `Cancelled: your crown visit on ${at}`;
       if (hasCalendar) attachments.push(calendarAttachment(row, visit, true));
       break;

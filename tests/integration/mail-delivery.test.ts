@@ -125,6 +125,7 @@ describe.skipIf(!catcherUrl)("delivery through the mail catcher", () => {
     const local = new Intl.DateTimeFormat("en-GB", { timeZone: "America/Toronto", hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(visit.startsAt);
     expect(mail.text).toContain(local);
     expect(mail.text).toMatch(/Eastern (Standard|Daylight) Time/);
+    expect(mail.text).toContain(`/patient/visits/${visit.id}`);
 
     // Parsed with a general-purpose iCalendar library (ical.js); RFC 5545 §3.6.1 [P]: UID and
     // DTSTAMP required, DTEND and DURATION never both.
@@ -201,6 +202,38 @@ describe.skipIf(!catcherUrl)("delivery through the mail catcher", () => {
     expect((await caughtFor(user.email)).filter((m) => m.subject.startsWith("Reminder:"))).toHaveLength(1);
   });
 
+  it("a moved visit gets a new-time e-mail with an updated calendar copy; a cancelled one a cancelling copy", async () => {
+    const own = await createTestClinic({ timeZone: "America/Toronto" });
+    const { visit, user } = await createVisit(own, { startsAt: hoursFromNow(100), status: "confirmed" });
+    await drainMailOnce({ clinicId: own.clinic.id });
+    const later = new Date(visit.startsAt.getTime() + 26 * HOUR);
+    await changeVisit(visit.id, { startsAt: later, endsAt: new Date(later.getTime() + 150 * 60_000) });
+    await drainMailOnce({ clinicId: own.clinic.id });
+    await changeVisit(visit.id, { status: "cancelled", statusReason: "Asked by the patient." });
+    await drainMailOnce({ clinicId: own.clinic.id });
+
+    const mails = await eventually(async () => {
+      const m = await caughtFor(user.email);
+      return m.length >= 3 ? m : null;
+    });
+    const calendar = async (prefix: string) => {
+      const m = mails.find((x) => x.subject.startsWith(prefix))!;
+      return parseIcs(await caughtAttachment(m, m.attachments![0].generatedFileName));
+    };
+    const confirmed = await calendar("Confirmed:");
+    const moved = await calendar("New time:");
+    const cancelled = await calendar("Cancelled:");
+    // One UID for the visit throughout; SEQUENCE rises with each revision (RFC 5545 §3.8.7.4 [P]).
+    expect(new Set([confirmed.event.uid, moved.event.uid, cancelled.event.uid]).size).toBe(1);
+    expect([confirmed.event.sequence, moved.event.sequence, cancelled.event.sequence]).toEqual([0, 1, 2]);
+    expect(moved.event.startDate.toJSDate().getTime()).toBe(later.getTime());
+    expect(cancelled.vevent.getFirstPropertyValue("status")).toBe("CANCELLED");
+    const movedMail = mails.find((x) => x.subject.startsWith("New time:"))!;
+    expect(movedMail.text).toMatch(/It was on .+ at \d\d:\d\d \(Eastern (Standard|Daylight) Time\)/);
+    expect(mails.find((x) => x.subject.startsWith("Cancelled:"))!.text).toContain("Reason given: Asked by the patient.");
+    expect(mails.filter((x) => x.subject.startsWith("Reminder:"))).toHaveLength(0);
+  });
+
   it("sends the consent copy with its PDF attached, once per PDF", async () => {
     const own = await createTestClinic({ timeZone: "America/Toronto" });
     const { visit, user } = await createVisit(own, { startsAt: hoursFromNow(70) });
@@ -219,7 +252,10 @@ describe.skipIf(!catcherUrl)("delivery through the mail catcher", () => {
     expect(copies[0].attachments?.map((a) => [a.filename, a.contentType])).toEqual([["consent-copy.pdf", "application/pdf"]]);
     const attached = await fetch(`${catcherUrl}/api/email/${copies[0].id}/attachment/${copies[0].attachments![0].generatedFileName}`).then((r) => r.arrayBuffer());
     expect(Buffer.from(attached).equals(pdf)).toBe(true);
-    expect((await MailOutbox.findByPk(first.outboxId))!.state).toBe("sent");
+    // Two requests for the same PDF share one key: one is sent, the other never is.
+    const rows = await MailOutbox.findAll({ where: { appointmentId: visit.id, kind: "consent_copy" } });
+    expect(rows.map((r) => r.id)).toContain(first.outboxId);
+    expect(rows.filter((r) => r.state === "sent")).toHaveLength(1);
     await expect(sendConsentCopy({ appointmentId: visit.id, pdf: Buffer.from("not a pdf"), filename: "x.pdf" })).rejects.toThrow(/PDF/);
   });
 

@@ -29,7 +29,7 @@ const templates: [string, ReactElement, RegExp[]][] = [
   ["visit requested", createElement(VisitRequestedEmail, props), [/Nothing is booked until/]],
   ["visit confirmed", createElement(VisitConfirmedEmail, { ...props, reminderText: "48 hours and 2 hours before" }), [/is confirmed/i, /crown-visit\.ics/, /48 hours and 2 hours before/]],
   ["visit moved", createElement(VisitMovedEmail, { ...props, previous: visitWhen(new Date("2027-03-12T15:00:00Z"), new Date("2027-03-12T17:30:00Z"), "America/Toronto"), hasCalendar: true }), [/new time/i, /Friday 12 March 2027 at 10:00 \(Eastern Standard Time\)/]],
-  ["visit declined", createElement(VisitEndedEmail, { ...props, outcome: "declined", reason: "The mill is being serviced that day.", hasCalendar: false }), [/could not be confirmed/i, /The mill is being serviced/]],
+  ["visit declined", createElement(VisitEndedEmail, { ...props, outcome: "declined", reason: "The mill is being serviced that day.", hasCalendar: false }), [/could not be confirmed/i, /Reason given: The mill is being serviced/]],
   ["visit cancelled", createElement(VisitEndedEmail, { ...props, outcome: "cancelled", reason: null, hasCalendar: true }), [/is cancelled/i, /marks the visit as cancelled/]],
   ["reminder", createElement(ReminderEmail, { ...props, leadText: "in 2 days", turnOffUrl: "https://portal.example/reminders/t" }), [
     /Eat a normal meal beforehand/, /numb/, /Allow the whole visit: about 2 hours 30 minutes/, /list of the medicines/, /feel unwell/,
