@@ -7,6 +7,9 @@ import { clockAt, hhmm, KIND_LABEL, ms, shiftText, STATE_LABEL, STATUS_LABEL } f
 const PX_PER_MIN = 4;
 const MIN = 60_000;
 
+/** Gaps inside a block: the visit holds the chair while waiting for a machine. */
+const WAITING = "repeating-linear-gradient(45deg, #ffffff 0 6px, #ece8df 6px 8px)";
+
 const STATE_CLASS = {
   planned: "bg-harbour-50 border-harbour-600",
   running: "bg-ochre-50 border-ochre-600",
@@ -15,22 +18,25 @@ const STATE_CLASS = {
 
 type Block = { visit: BoardVisit; stages: BoardStage[]; start: number; end: number; plannedStart: number; plannedEnd: number };
 
-/** Consecutive stages of a visit on one lane make one block (a chair is held from check-in to cementation). */
+/** Consecutive stages of a visit on one lane make one block: a chair stays held from check-in to
+ *  cementation, also while the crown waits for a busy mill or furnace. */
 function blocksOn(laneId: string, visits: BoardVisit[]): Block[] {
   const out: Block[] = [];
   for (const visit of visits) {
-    const stages = visit.stages.filter((s) => s.laneIds.includes(laneId));
     let current: Block | null = null;
-    for (const s of stages) {
-      if (current && ms(s.start) - current.end < MIN) {
+    let lastIndex = -2;
+    visit.stages.forEach((s, i) => {
+      if (!s.laneIds.includes(laneId)) return;
+      if (current && lastIndex === i - 1) {
         current.stages.push(s);
-        current.end = ms(s.end);
+        current.end = Math.max(current.end, ms(s.end));
         current.plannedEnd = ms(s.plannedEnd);
       } else {
         current = { visit, stages: [s], start: ms(s.start), end: ms(s.end), plannedStart: ms(s.plannedStart), plannedEnd: ms(s.plannedEnd) };
         out.push(current);
       }
-    }
+      lastIndex = i;
+    });
   }
   return out;
 }
@@ -38,12 +44,12 @@ function blocksOn(laneId: string, visits: BoardVisit[]): Block[] {
 function describe(block: Block, laneName: string, conflicted: string[]): string {
   const v = block.visit;
   const stageWords = block.stages.length === 1 ? block.stages[0].label : `${block.stages[0].label} to ${block.stages.at(-1)!.label}`;
-  const shift = Math.round((block.start - block.plannedStart) / MIN);
+  const shift = Math.round((block.end - block.plannedEnd) / MIN);
   const running = block.stages.find((s) => s.state === "running");
   return [
     `${v.initials}, tooth ${v.tooth.label}, ${v.material} ${v.mode}`,
     `${stageWords} on ${laneName}, ${clockAt(block.start, v.plannedStart)}–${clockAt(block.end, v.plannedStart)}`,
-    shift !== 0 ? `${shiftText(shift)} against the plan` : "on plan",
+    shift !== 0 ? `ends ${shiftText(shift)} against the plan` : "on plan",
     running ? `${running.label} running` : STATUS_LABEL[v.status],
     ...conflicted.map((c) => `conflict: ${c}`),
   ].join("; ");
@@ -59,7 +65,8 @@ export function BoardLanes({ board }: { board: Board }) {
     const label = clockAt(t, board.window.start);
     ticks.push({ at: t, label: label.endsWith(":00") ? label : null });
   }
-  const nowX = board.isToday ? x(ms(board.generatedAt)) : null;
+  const now = ms(board.generatedAt);
+  const nowX = board.isToday && now >= start && now <= end ? x(now) : null;
   const conflictsOf = (visitId: string, stages: BoardStage[]) =>
     board.conflicts.filter((c) => c.visitId === visitId && stages.some((s) => s.key === c.stageKey)).map((c) => c.message);
 
@@ -100,12 +107,13 @@ export function BoardLanes({ board }: { board: Board }) {
                     ))}
                     {blocksOn(lane.id, board.visits).map((b) => {
                       const conflicts = conflictsOf(b.visit.id, b.stages);
-                      const shift = Math.round((b.start - b.plannedStart) / MIN);
+                      const shift = Math.round((b.end - b.plannedEnd) / MIN);
+                      const moved = b.start !== b.plannedStart || b.end !== b.plannedEnd;
                       const left = x(b.start);
                       const w = Math.max(x(b.end) - left, 8);
                       return (
                         <div key={`${b.visit.id}-${b.start}`}>
-                          {shift !== 0 ? (
+                          {moved ? (
                             <div aria-hidden="true" className="absolute inset-y-2 rounded border border-dashed border-ink-muted" style={{ left: x(b.plannedStart), width: Math.max(x(b.plannedEnd) - x(b.plannedStart), 8) }} />
                           ) : null}
                           <Link
@@ -116,7 +124,7 @@ export function BoardLanes({ board }: { board: Board }) {
                             data-visit={b.visit.id}
                             data-conflict={conflicts.length > 0 ? "yes" : "no"}
                             className={`absolute inset-y-1 z-0 flex overflow-hidden rounded text-ink no-underline hover:no-underline focus-visible:z-10 ${conflicts.length ? "border-2 border-clay-600" : "border border-ink-muted"}`}
-                            style={{ left, width: w }}
+                            style={{ left, width: w, background: WAITING }}
                           >
                             {b.stages.map((s) => (
                               <span
@@ -161,6 +169,7 @@ function BoardLegend() {
       {items.map((i) => (
         <li key={i.label} className="flex items-center gap-2"><span aria-hidden="true" className={`inline-block h-4 w-6 rounded border ${i.cls}`} />{i.label} stage</li>
       ))}
+      <li className="flex items-center gap-2"><span aria-hidden="true" className="inline-block h-4 w-6 rounded border border-ink-muted" style={{ background: WAITING }} />Waiting for a machine</li>
       <li className="flex items-center gap-2"><span aria-hidden="true" className="inline-block h-4 w-6 rounded border border-dashed border-ink-muted" />Planned position of a shifted visit</li>
       <li className="flex items-center gap-2"><span aria-hidden="true" className="inline-block h-4 w-6 rounded border-2 border-clay-600" />⚠ Conflict (see the list above)</li>
       <li className="flex items-center gap-2"><span aria-hidden="true" className="inline-block h-4 w-1 bg-clay-700" />Now</li>

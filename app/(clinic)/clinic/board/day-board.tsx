@@ -11,6 +11,18 @@ import { addDays, hhmm, longDay } from "./board-format";
 
 const REFRESH_MS = 15_000;
 
+type Fetched = { ok: true; board: Board } | { ok: false; error: string };
+
+async function fetchBoard(day: string | null): Promise<Fetched> {
+  try {
+    const res = await fetch(`/api/board${day ? `?day=${day}` : ""}`, { cache: "no-store" });
+    const body = await res.json();
+    return res.ok ? { ok: true, board: body as Board } : { ok: false, error: body.error ?? "The board could not be loaded." };
+  } catch {
+    return { ok: false, error: "The board could not be reached. It will try again shortly." };
+  }
+}
+
 export function DayBoard({ initialDay }: { initialDay: string | null }) {
   const [day, setDay] = useState<string | null>(initialDay);
   const [board, setBoard] = useState<Board | null>(null);
@@ -18,39 +30,34 @@ export function DayBoard({ initialDay }: { initialDay: string | null }) {
   const [view, setView] = useState<"lanes" | "table">("lanes");
   const wanted = useRef<string | null>(initialDay);
 
-  const load = useCallback(async (which: string | null) => {
-    try {
-      const res = await fetch(`/api/board${which ? `?day=${which}` : ""}`, { cache: "no-store" });
-      const body = await res.json();
-      if (wanted.current !== which) return; // a newer day was chosen meanwhile
-      if (!res.ok) {
-        setError(body.error ?? "The board could not be loaded.");
-        return;
-      }
-      setError(null);
-      setBoard(body as Board);
-      if (!which) {
-        wanted.current = body.day;
-        setDay(body.day);
-      }
-    } catch {
-      setError("The board could not be reached. It will try again shortly.");
+  const apply = useCallback((which: string | null, result: Fetched) => {
+    if (wanted.current !== which) return; // a newer day was chosen meanwhile
+    if (!result.ok) {
+      setError(result.error);
+      return;
+    }
+    setError(null);
+    setBoard(result.board);
+    if (!which) {
+      wanted.current = result.board.day;
+      setDay(result.board.day);
     }
   }, []);
 
   useEffect(() => {
     wanted.current = day;
-    void load(day);
+    const refresh = () => fetchBoard(wanted.current).then((r) => apply(day, r));
+    void refresh();
     const timer = setInterval(() => {
-      if (document.visibilityState === "visible") void load(wanted.current);
+      if (document.visibilityState === "visible") void refresh();
     }, REFRESH_MS);
-    const onVisible = () => document.visibilityState === "visible" && void load(wanted.current);
+    const onVisible = () => document.visibilityState === "visible" && void refresh();
     document.addEventListener("visibilitychange", onVisible);
     return () => {
       clearInterval(timer);
       document.removeEventListener("visibilitychange", onVisible);
     };
-  }, [day, load]);
+  }, [day, apply]);
 
   const choose = (next: string) => {
     if (!/^\d{4}-\d{2}-\d{2}$/.test(next)) return;

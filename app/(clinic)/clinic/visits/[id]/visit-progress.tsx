@@ -7,6 +7,15 @@ import { useCallback, useEffect, useState } from "react";
 import type { VisitProgress as Progress } from "@/lib/data/progress";
 
 const REFRESH_MS = 20_000;
+
+type Fetched = { ok: true; data: Progress } | { ok: false; error: string };
+
+async function fetchProgress(visitId: string): Promise<Fetched> {
+  const res = await fetch(`/api/appointments/${visitId}/stages`, { cache: "no-store" }).catch(() => null);
+  if (!res) return { ok: false, error: "Progress could not be loaded. It will try again shortly." };
+  const body = await res.json().catch(() => ({}));
+  return res.ok ? { ok: true, data: body as Progress } : { ok: false, error: body.error ?? "Progress could not be loaded." };
+}
 const hhmm = (iso: string | null) => (iso ? iso.slice(11, 16) : "—");
 const STATUS = { requested: "Requested", confirmed: "Confirmed", checked_in: "Checked in", in_progress: "In progress", completed: "Completed" } as Record<string, string>;
 
@@ -19,20 +28,23 @@ export function VisitProgress({ visitId, canMark }: { visitId: string; canMark: 
   const [time, setTime] = useState("");
   const [busy, setBusy] = useState(false);
 
-  const load = useCallback(async () => {
-    const res = await fetch(`/api/appointments/${visitId}/stages`, { cache: "no-store" }).catch(() => null);
-    if (!res) return setLoadError("Progress could not be loaded. It will try again shortly.");
-    const body = await res.json().catch(() => ({}));
-    if (!res.ok) return setLoadError(body.error ?? "Progress could not be loaded.");
-    setLoadError(null);
-    setData(body as Progress);
-  }, [visitId]);
+  const load = useCallback(
+    () =>
+      fetchProgress(visitId).then((r) => {
+        if (r.ok) {
+          setLoadError(null);
+          setData(r.data);
+        } else setLoadError(r.error);
+      }),
+    [visitId],
+  );
 
   useEffect(() => {
-    void load();
-    const timer = setInterval(() => document.visibilityState === "visible" && void load(), REFRESH_MS);
+    const refresh = () => fetchProgress(visitId).then((r) => (r.ok ? (setLoadError(null), setData(r.data)) : setLoadError(r.error)));
+    void refresh();
+    const timer = setInterval(() => document.visibilityState === "visible" && void refresh(), REFRESH_MS);
     return () => clearInterval(timer);
-  }, [load]);
+  }, [visitId]);
 
   if (!data) {
     return loadError ? <p className="text-ink-soft">{loadError}</p> : <p className="text-ink-soft">Loading progress…</p>;
