@@ -17,6 +17,7 @@ export function benchEnv(db: string, port: number) {
     APP_URL: `http://localhost:${port}`,
     NEXT_TELEMETRY_DISABLED: "1",
     NEXT_DIST_DIR: ".next-bench",
+    CUSPAL_SKIP_TYPECHECK: "1",
     NODE_ENV: "production",
   } as NodeJS.ProcessEnv & Record<string, string>;
 }
