@@ -122,5 +122,7 @@ export async function visitForReminderToken(token: string) {
   const visit = await Appointment.findByPk(id, { attributes: ["id", "clinicId", "startsAt", "endsAt", "status", "remindersEnabled"] });
   if (!visit) return null;
   const clinic = await Clinic.findByPk(visit.clinicId, { attributes: ["name", "timeZone", "phone"] });
-  return { visit, clinic: clinic! };
+  // Reminders can only be turned back on for a visit still to come.
+  const upcoming = ["requested", "confirmed"].includes(visit.status) && visit.startsAt.getTime() > Date.now();
+  return { visit, clinic: clinic!, upcoming };
 }

@@ -33,10 +33,9 @@ export default async function ReminderLinkPage({ params, searchParams }: {
   );
 }
 
-function ReminderChoice({ token, done, visit, clinic }: { token: string; done?: string } & NonNullable<Awaited<ReturnType<typeof visitForReminderToken>>>) {
+function ReminderChoice({ token, done, visit, clinic, upcoming }: { token: string; done?: string } & NonNullable<Awaited<ReturnType<typeof visitForReminderToken>>>) {
   const when = visitWhen(visit.startsAt, visit.endsAt, clinic.timeZone);
   const on = visit.remindersEnabled;
-  const upcoming = ["requested", "confirmed"].includes(visit.status) && visit.startsAt.getTime() > Date.now();
   return (
     <section className="card space-y-4" aria-labelledby="reminders-title">
       <div className="space-y-1">
