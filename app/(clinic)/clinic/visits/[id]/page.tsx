@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { DeliveryLog } from "@/components/clinic/delivery-log";
 import { ConsentLink } from "@/components/consent/consent-link";
 import { StatusBadge } from "@/components/visits/status-badge";
 import { VisitTimeline } from "@/components/visits/visit-timeline";
@@ -63,6 +64,7 @@ export default async function ClinicVisitPage({ params }: { params: Promise<{ id
           <VisitProgress visitId={visit.id} canMark={["dentist", "reception"].includes(user.role)} />
         </section>
       ) : null}
+      <DeliveryLog appointmentId={visit.id} />
       <section className="card space-y-3" aria-labelledby="blocks">
         <h2 id="blocks" className="text-lg font-semibold">Crown block</h2>
         <VisitBlocks visitId={visit.id} clinicId={visit.clinicId} zone={zone} canRecord={["dentist", "reception"].includes(user.role)} open={["confirmed", "checked_in", "in_progress", "completed"].includes(visit.status)} />

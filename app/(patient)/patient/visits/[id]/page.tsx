@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { CautionsNote } from "@/components/cautions-note";
 import { ConsentLink } from "@/components/consent/consent-link";
+import { ReminderToggle } from "@/components/patient/reminder-toggle";
 import { PreVisitNotes } from "@/components/visits/pre-visit-notes";
 import { StatusBadge } from "@/components/visits/status-badge";
 import { VisitActions } from "@/components/visits/visit-actions";
@@ -29,7 +30,7 @@ export default async function PatientVisitPage({ params }: { params: Promise<{ i
   const zone = clinic!.timeZone;
   const tooth = describeTooth(visit.tooth);
   const minutes = Math.round((visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000);
-  const { cancelCutoffHours } = withDefaults(clinic!.settings);
+  const { cancelCutoffHours, reminderHoursBefore } = withDefaults(clinic!.settings);
   const active = ["requested", "confirmed"].includes(visit.status);
   const canChange = patientMayChange(visit, cancelCutoffHours);
 
@@ -61,6 +62,10 @@ export default async function PatientVisitPage({ params }: { params: Promise<{ i
         </section>
       ) : null}
       <ConsentLink user={user} visitId={visit.id} />
+      {active ? (
+        <ReminderToggle appointmentId={visit.id} enabled={visit.remindersEnabled}
+          whenText={reminderHoursBefore.length ? `${reminderHoursBefore.map((h) => `${h} hours`).join(" and ")} before` : "before your visit"} />
+      ) : null}
       {active ? <PreVisitNotes minutes={minutes} /> : null}
       <section className="card space-y-3" aria-labelledby="plan">
         <h2 id="plan" className="text-lg font-semibold">How the visit is planned</h2>
