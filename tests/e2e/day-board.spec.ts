@@ -70,7 +70,7 @@ test.afterAll(async () => {
 });
 
 test("walks the demo day: check-in, a late milling shifts the next crown on the same mill, a lot is recorded and found", async ({ browser }) => {
-  test.slow();
+  test.setTimeout(360_000);
   // Reception checks the patient in from the visit page.
   const reception = await signedInPage(browser, "reception@cuspal.test");
   await reception.getByRole("link", { name: "Day board" }).click();
@@ -78,7 +78,6 @@ test("walks the demo day: check-in, a late milling shifts the next crown on the 
   await expect(reception.getByTestId("board-lane")).toHaveCount(6);
   await expect(reception.locator(`[data-testid=board-block][data-visit="${tobiasVisit}"]`).first()).toHaveAttribute("aria-label", /TR, tooth 46/);
   await expectNoAxeViolations(reception);
-  await reception.screenshot({ path: "test-results/day-board-before-1280.png", fullPage: true });
 
   const tobias = (await (await reception.request.get(`/api/appointments/${tobiasVisit}/stages`)).json()).visit.stages as Stage[];
   const marisol = (await (await reception.request.get(`/api/appointments/${marisolVisit}/stages`)).json()).visit as { stages: Stage[]; lanes: { mill: string } };
@@ -127,7 +126,6 @@ test("walks the demo day: check-in, a late milling shifts the next crown on the 
   await expect(millLane.locator(`[data-testid=board-block][data-visit="${tobiasVisit}"]`)).toHaveAttribute("aria-label", /Milling on Mill \w+, \d\d:\d\d–\d\d:\d\d; ends \d+ min late/);
   await expect(dentist.getByTestId("board-delays")).toContainText("MA (tooth 26)");
   await expectNoAxeViolations(dentist);
-  await dentist.screenshot({ path: "test-results/day-board-conflict-1280.png", fullPage: true });
 
   await dentist.getByRole("button", { name: "Table" }).click();
   const marisolRows = dentist.locator(`[data-testid=board-table-visit][data-visit="${marisolVisit}"]`);
@@ -137,19 +135,18 @@ test("walks the demo day: check-in, a late milling shifts the next crown on the 
 
   // The block's lot from its GS1 code: an expired block is refused, a good one is recorded.
   await dentist.goto(`/clinic/visits/${tobiasVisit}`);
-  await dentist.getByLabel("Package code").fill("(01)09501101530003(17)200100(10)OLDLOT1");
+  await dentist.getByRole("textbox", { name: "Package code" }).fill("(01)09501101530003(17)200100(10)OLDLOT1");
   await dentist.getByRole("button", { name: "Record block" }).click();
   await expect(dentist.getByTestId("block-lot-error")).toContainText("expired on 2020-01-31");
   const expiryYear = new Date().getUTCFullYear() + 2;
   // [M] from memory: 09501101530003 is GS1's example GTIN; DD = 00 means the month's last day.
-  await dentist.getByLabel("Package code").fill(`(01)09501101530003(17)${String(expiryYear).slice(2)}0600(10)${lot}(21)BLK-7`);
+  await dentist.getByRole("textbox", { name: "Package code" }).fill(`(01)09501101530003(17)${String(expiryYear).slice(2)}0600(10)${lot}(21)BLK-7`);
   await dentist.getByRole("button", { name: "Record block" }).click();
   await expect(dentist.getByTestId("block-lot-recorded")).toHaveText(`Recorded lot ${lot}, use by ${expiryYear}-06-30, GTIN 09501101530003, serial BLK-7.`);
   await expect(dentist.getByTestId("visit-lots")).toContainText(`Lot ${lot}`);
   const stored = await db.query("SELECT lot, gtin, expiry::text AS expiry, serial FROM block_lots WHERE appointment_id = $1", [tobiasVisit]);
   expect(stored.rows).toEqual([{ lot, gtin: "09501101530003", expiry: `${expiryYear}-06-30`, serial: "BLK-7" }]);
   await expectNoAxeViolations(dentist);
-  await dentist.screenshot({ path: "test-results/day-board-visit-1280.png", fullPage: true });
 
   // Reception finds who received that lot, for a recall.
   await reception.getByRole("link", { name: "Lots" }).click();
