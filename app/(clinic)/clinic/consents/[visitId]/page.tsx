@@ -87,7 +87,7 @@ export default async function ConsentReviewPage({ params }: { params: Promise<{ 
             <ul className="space-y-1 text-sm" aria-label="PDF versions">
               {view.pdfVersions.map((p) => (
                 <li key={p.version}>
-                  <a href={`/api/consents/${signed.id}/pdf?version=${p.version}`}>
+                  <a className="underline" href={`/api/consents/${signed.id}/pdf?version=${p.version}`}>
                     Version {p.version} ({p.reason === "signed" ? "as signed" : "with the review"})
                   </a>{" "}
                   <span className="break-all text-ink-muted">SHA-256 {p.sha256}</span>

@@ -1,6 +1,5 @@
 "use client";
 
-import Link from "next/link";
 import { useState } from "react";
 
 type Result = { match: true; consentId: string } | { match: false };
@@ -43,7 +42,7 @@ export function VerifyForm() {
         {result?.match ? (
           <p className="rounded-lg border-l-4 border-sage-600 bg-sage-50 p-3 font-medium text-sage-700">
             Matches: this is an unaltered consent issued by this clinic.{" "}
-            <Link href={`/api/consents/${result.consentId}/pdf`}>Open the stored copy</Link> (consent {result.consentId}).
+            <a className="underline" href={`/api/consents/${result.consentId}/pdf`}>Open the stored copy</a> (consent {result.consentId}).
           </p>
         ) : result ? (
           <p className="rounded-lg border-l-4 border-clay-600 bg-clay-50 p-3 font-medium text-clay-700">

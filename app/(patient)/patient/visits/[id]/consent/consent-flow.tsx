@@ -53,11 +53,17 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
     const problem = checkDrawnSignature(pad.current);
     setSignatureError(problem);
     if (problem) return;
-    const res = await fetch("/api/consents", {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify({ ...values, appointmentId, templateId, textSha256, signature: pad.current!.toDataURL("image/png") }),
-    });
+    let res: Response;
+    try {
+      res = await fetch("/api/consents", {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ ...values, appointmentId, templateId, textSha256, signature: pad.current!.toDataURL("image/png") }),
+      });
+    } catch {
+      setServerError({ message: "We could not reach the clinic's server. Check your connection and try again.", reload: false });
+      return;
+    }
     if (res.status === 201) {
       setDone(true);
       router.refresh();
@@ -184,7 +190,8 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
               aria-describedby={errors.typedName ? "typedName-hint typedName-error" : "typedName-hint"} {...register("typedName")} />
             {errors.typedName ? <p id="typedName-error" className="field-error">{errors.typedName.message}</p> : null}
           </div>
-          <SignaturePad padRef={pad} error={signatureError} onChange={() => setSignatureError(null)} />
+          {/* Mounted only when visible: the canvas takes its pixel size from its box when it mounts. */}
+          {step === 2 ? <SignaturePad padRef={pad} error={signatureError} onChange={() => setSignatureError(null)} /> : null}
         </section>
         <div className="flex gap-2">
           <button type="button" className="btn-quiet" onClick={() => setStep(1)}>Back</button>

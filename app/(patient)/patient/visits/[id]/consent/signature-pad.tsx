@@ -10,6 +10,7 @@ export function checkDrawnSignature(pad: SignatureCanvas | null): string | null 
   const canvas = pad.getCanvas();
   const ctx = canvas.getContext("2d");
   if (!ctx) return null;
+  if (canvas.width === 0 || canvas.height === 0) return "Please draw your signature in the box.";
   const { data, width, height } = ctx.getImageData(0, 0, canvas.width, canvas.height);
   return signatureProblem(inkStats(new Uint8Array(data.buffer), width, height));
 }
