@@ -77,7 +77,10 @@ export default async function ConsentReviewPage({ params }: { params: Promise<{ 
             </details>
           </div>
           <section className="space-y-3" aria-labelledby="pdf-heading">
-            <h2 id="pdf-heading" className="text-lg font-semibold">Sealed PDF</h2>
+            <div className="flex flex-wrap items-center justify-between gap-2">
+              <h2 id="pdf-heading" className="text-lg font-semibold">Sealed PDF</h2>
+              <a className="btn-quiet" href={`/api/consents/${signed.id}/pdf`} target="_blank" rel="noopener">Open the PDF full screen</a>
+            </div>
             <iframe
               title={`Signed consent of ${visit.patient}`}
               src={`/api/consents/${signed.id}/pdf`}

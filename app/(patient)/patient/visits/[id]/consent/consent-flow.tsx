@@ -27,7 +27,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
   const [done, setDone] = useState(false);
   const first = useRef(true);
 
-  const { register, handleSubmit, trigger, setError, formState } = useForm<ConsentFormInput, unknown, ConsentFormValues>({
+  const { register, handleSubmit, trigger, setError, clearErrors, formState } = useForm<ConsentFormInput, unknown, ConsentFormValues>({
     resolver: zodResolver(consentFormSchema),
     defaultValues: { answers: { otherAllergies: "", medicines: "", notes: "" } as ConsentFormInput["answers"], acknowledged: [], electronicRecords: false as unknown as true, typedName: "" },
     shouldFocusError: true,
@@ -112,7 +112,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
                 <div className="flex flex-wrap gap-2">
                   {ANSWERS.map((a) => (
                     <label key={a} className="inline-flex min-h-11 cursor-pointer items-center gap-2 rounded-lg border border-ink-muted bg-white px-3 has-[:checked]:border-harbour-600 has-[:checked]:bg-harbour-50 has-[:checked]:font-semibold">
-                      <input type="radio" value={a} className="size-5 accent-harbour-600" {...register(`answers.${q.key}`)} />
+                      <input type="radio" value={a} className="size-5 accent-harbour-600" {...register(`answers.${q.key}`, { onChange: () => clearErrors(`answers.${q.key}`) })} />
                       {ANSWER_LABELS[a]}
                     </label>
                   ))}
@@ -152,7 +152,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
             <h3 id={`section-${s.key}`} className="text-lg font-semibold">{s.heading}</h3>
             <SectionBody section={s} />
             <label className="flex min-h-11 cursor-pointer items-center gap-3 rounded-lg bg-paper p-2 font-medium">
-              <input type="checkbox" value={s.key} className="size-6 accent-harbour-600" {...register("acknowledged")} />
+              <input type="checkbox" value={s.key} className="size-6 accent-harbour-600" {...register("acknowledged", { onChange: () => { if (errors.acknowledged) void trigger("acknowledged"); } })} />
               I have read and understood this part
             </label>
           </section>
@@ -175,7 +175,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
           <h3 id="records-heading" className="text-lg font-semibold">{document.electronicRecords.heading}</h3>
           {document.electronicRecords.text.map((t) => <p key={t}>{t}</p>)}
           <label className="flex min-h-11 cursor-pointer items-center gap-3 rounded-lg bg-paper p-2 font-medium">
-            <input type="checkbox" className="size-6 accent-harbour-600" aria-describedby={errors.electronicRecords ? "records-error" : undefined} {...register("electronicRecords")} />
+            <input type="checkbox" className="size-6 accent-harbour-600" aria-describedby={errors.electronicRecords ? "records-error" : undefined} {...register("electronicRecords", { onChange: () => clearErrors("electronicRecords") })} />
             I agree to sign and receive these records electronically
           </label>
           {errors.electronicRecords ? <p id="records-error" className="field-error">{errors.electronicRecords.message}</p> : null}
