@@ -75,9 +75,9 @@ export function BoardLanes({ board }: { board: Board }) {
   return (
     <div className="space-y-3">
       <div className="card overflow-x-auto p-0" data-testid="board-lanes">
-        <div className="relative" style={{ width: width + 176 }}>
+        <div className="relative w-max">
           <div className="sticky top-0 flex border-b border-line bg-white" aria-hidden="true">
-            <div className="sticky left-0 z-20 w-44 shrink-0 bg-white" />
+            <div className="sticky left-0 z-20 w-28 shrink-0 bg-white sm:w-44" />
             <div className="relative h-7" style={{ width }}>
               {ticks.map((t) => (
                 <div key={t.at} className="absolute top-0 h-full border-l border-line" style={{ left: x(t.at) }}>
@@ -88,10 +88,10 @@ export function BoardLanes({ board }: { board: Board }) {
           </div>
           {kinds.map((kind) => (
             <div key={kind} role="group" aria-label={KIND_LABEL[kind]}>
-              <div className="sticky left-0 z-10 w-44 bg-paper-deep px-3 py-1 text-xs font-bold uppercase tracking-wide text-ink-soft">{KIND_LABEL[kind]}</div>
+              <div className="sticky left-0 z-10 w-28 bg-paper-deep px-3 py-1 text-xs font-bold uppercase tracking-wide text-ink-soft sm:w-44">{KIND_LABEL[kind]}</div>
               {board.lanes.filter((l) => l.kind === kind).map((lane) => (
                 <div key={lane.id} className="flex border-b border-line" role="group" aria-labelledby={`lane-${lane.id}`} data-testid="board-lane" data-lane={lane.name}>
-                  <div id={`lane-${lane.id}`} className="sticky left-0 z-10 flex w-44 shrink-0 items-center border-r border-line bg-white px-3 text-sm font-semibold">
+                  <div id={`lane-${lane.id}`} className="sticky left-0 z-10 flex w-28 shrink-0 items-center border-r border-line bg-white px-2 text-sm font-semibold sm:w-44 sm:px-3">
                     {lane.name}{lane.active ? "" : " (retired)"}
                   </div>
                   <div className="relative h-20" style={{ width }}>
@@ -134,7 +134,7 @@ export function BoardLanes({ board }: { board: Board }) {
                                 style={{ left: x(ms(s.start)) - left, width: Math.max(x(ms(s.end)) - x(ms(s.start)), 1) }}
                               />
                             ))}
-                            <span aria-hidden="true" className="relative px-1 text-xs leading-tight">
+                            <span aria-hidden="true" className="relative m-0.5 self-start rounded-sm bg-white/85 px-1 text-xs leading-tight">
                               <span className="block font-bold">{conflicts.length ? "⚠ " : ""}{b.visit.initials} · {b.visit.tooth.fdi}</span>
                               <span className="block whitespace-nowrap">{b.stages.length === 1 ? b.stages[0].label : `${b.visit.material} · ${b.visit.mode}`}</span>
                               <span className="block whitespace-nowrap">{shift > 0 ? `${shift} min late` : shift < 0 ? `${-shift} min early` : STATUS_LABEL[b.visit.status]}</span>

@@ -25,7 +25,8 @@ export function StageDurationsForm({ initial }: { initial: StageDurations["rows"
     <form onSubmit={handleSubmit(async (v) => setState(await saveStageDurationsAction(v)))} noValidate className="space-y-3">
       <FormStatus state={state} testId="durations-status" />
       {rootErr ? <p className="field-error" role="alert">{rootErr}</p> : null}
-      <table className="w-full text-left text-sm">
+      <div className="overflow-x-auto">
+      <table className="w-full min-w-[36rem] text-left text-sm">
         <caption className="sr-only">Minutes per stage</caption>
         <thead><tr><th scope="col">Stage</th><th scope="col">Teeth</th><th scope="col">Minutes</th><th scope="col"><span className="sr-only">Remove</span></th></tr></thead>
         <tbody>
@@ -58,6 +59,7 @@ export function StageDurationsForm({ initial }: { initial: StageDurations["rows"
           })}
         </tbody>
       </table>
+      </div>
       <div className="flex flex-wrap gap-2">
         <button type="button" className="btn-quiet" onClick={() => append({ stage: "preparation", toothClass: "molar", minutes: 30 })}>Add a row</button>
         <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>Save stage durations</button>

@@ -21,7 +21,8 @@ export function HoursForm({ initial }: { initial: OpeningHours["hours"] }) {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3">
       <FormStatus state={state} testId="hours-status" />
-      <table className="w-full text-left text-sm">
+      <div className="overflow-x-auto">
+      <table className="w-full min-w-[32rem] text-left text-sm">
         <caption className="sr-only">Opening intervals</caption>
         <thead>
           <tr><th scope="col" className="pb-1">Day</th><th scope="col" className="pb-1">Opens</th><th scope="col" className="pb-1">Closes</th><th scope="col" className="pb-1"><span className="sr-only">Remove</span></th></tr>
@@ -56,6 +57,7 @@ export function HoursForm({ initial }: { initial: OpeningHours["hours"] }) {
           })}
         </tbody>
       </table>
+      </div>
       <div className="flex flex-wrap gap-2">
         <button type="button" className="btn-quiet" onClick={() => append({ weekday: 1, opens: "08:00", closes: "12:00" })}>Add an interval</button>
         <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save opening hours"}</button>
