@@ -48,7 +48,7 @@ export async function run300(): Promise<Record<string, string | number>> {
   const now = new Date();
   const from = addDays(localDate(now, clinic.timeZone), 1);
 
-  // 300 visits placed on the first free slots over the coming weeks, alternating dentists and materials.
+  // 300 visits over the coming four weeks, alternating dentists and materials.
   let placed = 0;
   for (let i = 0; placed < 300 && i < 2000; i++) {
     const dentist = dentists[i % dentists.length];
@@ -59,8 +59,11 @@ export async function run300(): Promise<Record<string, string | number>> {
     const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: material.id, mode: "rapid", tooth: proposal.tooth });
     const rules = await loadRules(clinic);
     const resources = await loadResources(clinic.id, dentist.id);
-    const busy = await loadBusy({ clinicId: clinic.id, resources, from: zonedTime(from, "00:00", clinic.timeZone), to: zonedTime(addDays(from, 30), "00:00", clinic.timeZone) });
-    const slot = findSlots({ timeline, rules, resources, busy, from, days: 28, now }).find((_, k) => k % 7 === i % 7) ?? null;
+    // Spread over four weeks: one day at a time, a different slot of the day each time.
+    const day = addDays(from, i % 28);
+    const busy = await loadBusy({ clinicId: clinic.id, resources, from: zonedTime(day, "00:00", clinic.timeZone), to: zonedTime(addDays(day, 1), "00:00", clinic.timeZone) });
+    const daySlots = findSlots({ timeline, rules, resources, busy, from: day, days: 1, now });
+    const slot = daySlots.length ? daySlots[(i * 7) % daySlots.length] : null;
     if (!slot) continue;
     await sequelize.transaction(async (transaction) => {
       const a = await Appointment.create({
@@ -116,7 +119,8 @@ export async function run300(): Promise<Record<string, string | number>> {
       await ProposalMaterial.create({ proposalId: prop.id, materialId: feld.id, modes: ["rapid"] });
       racers.push({ cookie: await sessionCookie({ id: user.id, email: user.email, name: user.name, role: "patient", clinicId: clinic.id }, env.NEXTAUTH_SECRET!), proposalId: prop.id });
     }
-    const free = await (await fetch(`http://localhost:${PORT}/api/proposals/${racers[0].proposalId}/availability?materialId=${feld.id}&mode=rapid&from=${from}&days=14`, { headers: { cookie: racers[0].cookie } })).json();
+    const free = await (await fetch(`http://localhost:${PORT}/api/proposals/${racers[0].proposalId}/availability?materialId=${feld.id}&mode=rapid&from=${from}&days=60`, { headers: { cookie: racers[0].cookie } })).json();
+    if (!free.slots?.length) throw new Error("No free slot left for the concurrency run.");
     const start = free.slots[0].start;
     const latencies: number[] = [];
     const statuses = await Promise.all(racers.map(async (r) => {
