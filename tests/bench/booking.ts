@@ -48,7 +48,7 @@ export async function run300(): Promise<Record<string, string | number>> {
   const now = new Date();
   const from = addDays(localDate(now, clinic.timeZone), 1);
 
-  // 300 visits over the coming four weeks, alternating dentists and materials.
+  // 300 visits over the coming weeks, alternating dentists and materials.
   let placed = 0;
   for (let i = 0; placed < 300 && i < 2000; i++) {
     const dentist = dentists[i % dentists.length];
@@ -59,11 +59,12 @@ export async function run300(): Promise<Record<string, string | number>> {
     const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: material.id, mode: "rapid", tooth: proposal.tooth });
     const rules = await loadRules(clinic);
     const resources = await loadResources(clinic.id, dentist.id);
-    // Spread over four weeks: one day at a time, a different slot of the day each time.
-    const day = addDays(from, i % 28);
+    // Three chairs hold about a dozen visits a day, so 300 visits spread over the next eight weeks,
+    // one day at a time, on the first free slot of that day.
+    const day = addDays(from, i % 56);
     const busy = await loadBusy({ clinicId: clinic.id, resources, from: zonedTime(day, "00:00", clinic.timeZone), to: zonedTime(addDays(day, 1), "00:00", clinic.timeZone) });
     const daySlots = findSlots({ timeline, rules, resources, busy, from: day, days: 1, now });
-    const slot = daySlots.length ? daySlots[(i * 7) % daySlots.length] : null;
+    const slot = daySlots[0] ?? null;
     if (!slot) continue;
     await sequelize.transaction(async (transaction) => {
       const a = await Appointment.create({
