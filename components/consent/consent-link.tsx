@@ -21,7 +21,8 @@ export async function ConsentLink({ user, visitId }: { user: SessionUser; visitI
         <p>Before the visit, answer a few health questions and read and sign the consent on your phone. It takes about ten minutes.</p>
       ) : null}
       {!patient && consent.flags > 0 ? <p className="text-sm">{consent.flags === 1 ? "1 health point" : `${consent.flags} health points`} flagged for the dentist.</p> : null}
-      <Link href={href} className={patient && consent.status === "pending" ? "btn-primary" : "btn-quiet"}>{label}</Link>
+      {/* No prefetch: opening the consent page is recorded in its audit trail. */}
+      <Link href={href} prefetch={false} className={patient && consent.status === "pending" ? "btn-primary" : "btn-quiet"}>{label}</Link>
     </section>
   );
 }

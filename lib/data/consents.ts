@@ -331,10 +331,14 @@ export async function listTemplateVersions({ user }: { user: SessionUser }) {
     { bind: [user.clinicId], type: QueryTypes.SELECT },
   );
   const counts = new Map(signedCounts.map((r) => [r.template_id, Number(r.n)]));
-  return rows.map((r) => ({
-    id: r.id, version: r.version, title: r.title, status: r.status, publishedAt: r.publishedAt, withdrawnAt: r.withdrawnAt,
-    sections: r.sections as TemplateSection[], signedCount: counts.get(r.id) ?? 0,
-  }));
+  const clinic = await Clinic.findByPk(user.clinicId, { attributes: ["timeZone"] });
+  return {
+    timeZone: clinic?.timeZone ?? "UTC",
+    versions: rows.map((r) => ({
+      id: r.id, version: r.version, title: r.title, status: r.status, publishedAt: r.publishedAt, withdrawnAt: r.withdrawnAt,
+      sections: r.sections as TemplateSection[], signedCount: counts.get(r.id) ?? 0,
+    })),
+  };
 }
 
 export type PublishResult = { ok: true; version: number } | { ok: false; error: string; field?: string };

@@ -3,16 +3,15 @@ import Link from "next/link";
 import { requirePageUser } from "@/lib/auth/session";
 import { listTemplateVersions } from "@/lib/data/consents";
 import { PLACEHOLDER_HELP, PLACEHOLDERS } from "@/lib/domain/consent-text";
+import { when } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Consent texts" };
-
-const dateOf = (d: Date) => new Intl.DateTimeFormat("en-CA", { dateStyle: "medium", timeStyle: "short" }).format(d);
 
 /** The clinic manager's view of the consent text versions: the one in use and every earlier one. */
 export default async function ConsentTemplatesPage({ searchParams }: { searchParams: Promise<{ published?: string }> }) {
   const user = await requirePageUser(["admin"]);
   const { published } = await searchParams;
-  const versions = await listTemplateVersions({ user });
+  const { versions, timeZone } = await listTemplateVersions({ user });
   const current = versions.find((v) => v.status === "published");
 
   return (
@@ -47,7 +46,7 @@ export default async function ConsentTemplatesPage({ searchParams }: { searchPar
                 <td className="py-2 pr-3 font-semibold">{v.version}</td>
                 <td className="py-2 pr-3">{v.title}</td>
                 <td className="py-2 pr-3">{v.status === "published" ? <span className="chip border-sage-600 bg-sage-50 text-sage-700">In use</span> : <span className="chip border-line bg-paper-deep text-ink-soft">Replaced</span>}</td>
-                <td className="py-2 pr-3">{dateOf(v.publishedAt)}</td>
+                <td className="py-2 pr-3">{when(v.publishedAt, timeZone)}</td>
                 <td className="py-2">{v.signedCount}</td>
               </tr>
             ))}

@@ -9,7 +9,7 @@ export const metadata: Metadata = { title: "New consent text version" };
 
 export default async function NewConsentTemplatePage() {
   const user = await requirePageUser(["admin"]);
-  const versions = await listTemplateVersions({ user });
+  const { versions } = await listTemplateVersions({ user });
   const current = versions.find((v) => v.status === "published")!;
   return (
     <div className="mx-auto max-w-read space-y-5">
