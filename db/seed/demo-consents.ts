@@ -18,7 +18,7 @@ const HOUR = 3600_000;
 const PHONE_UA = "Mozilla/5.0 (Linux; Android 14; Pixel 7) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/126.0 Mobile Safari/537.36";
 
 /** Running the seed by hand (without `npm run demo`) uses the same certificate place the demo set-up uses. */
-function useDemoSealCertificate() {
+function ensureDemoSealCertificate() {
   const dataDir = path.join(process.cwd(), ".data");
   if (!process.env.SEAL_CERT_PATH) process.env.SEAL_CERT_PATH = path.join(dataDir, "seal", "clinic-seal.p12");
   if (!process.env.SEAL_CERT_PASSWORD) {
@@ -42,7 +42,7 @@ async function demoSignature(): Promise<Buffer> {
 }
 
 export async function seedConsents(visits: DemoVisits, transaction: Transaction, now: Date) {
-  useDemoSealCertificate();
+  ensureDemoSealCertificate();
   const visit = visits.tobiasToday;
   const template = await publishedTemplate(visit.clinicId, transaction);
   const ctx = await loadVisitContext(visit, transaction);

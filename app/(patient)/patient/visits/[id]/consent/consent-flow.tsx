@@ -48,7 +48,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
     if (ok) setStep((s) => s + 1);
   }
 
-  const submit = handleSubmit(async (values) => {
+  async function sign(values: ConsentFormValues) {
     setServerError(null);
     const problem = checkDrawnSignature(pad.current);
     setSignatureError(problem);
@@ -74,7 +74,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
     if (body.field === "signature") setSignatureError(message);
     else if (body.field === "typedName") setError("typedName", { message }, { shouldFocus: true });
     else setServerError({ message, reload: body.field === "templateId" || body.field === "textSha256" });
-  });
+  }
 
   if (done) {
     return (
@@ -87,7 +87,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
   const answerError = (q: Question) => errors.answers?.[q.key]?.message;
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-5" aria-describedby="consent-steps">
+    <form onSubmit={(e) => void handleSubmit(sign)(e)} noValidate className="space-y-5" aria-describedby="consent-steps">
       <ol id="consent-steps" className="flex gap-2 text-sm" aria-label="Steps">
         {STEPS.map((label, i) => (
           <li key={label} aria-current={i === step ? "step" : undefined}
