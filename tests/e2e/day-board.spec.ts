@@ -1,11 +1,13 @@
 // The clinic's day at desktop width: reception checks Tobias in, the dentist advances his stages
 // with the milling finishing late, the board shifts Marisol's crown on the same mill and flags it,
 // a block lot is recorded from its GS1 code, and the patient is found again by that lot.
-import { expect, test, type Browser, type Page } from "@playwright/test";
+import { expect as baseExpect, test, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
 import { expectNoAxeViolations, signIn } from "./support";
 
 test.use({ viewport: { width: 1280, height: 900 }, hasTouch: false });
+// The board loads and polls in the browser; give a busy machine time to answer.
+const expect = baseExpect.configure({ timeout: 20_000 });
 
 type Stage = { key: string; label: string; plannedStart: string; plannedEnd: string };
 const hhmm = (iso: string) => iso.slice(11, 16);
@@ -172,4 +174,60 @@ test("marking an equipment out of service lists the visits on it; a range ending
   expect(res.status()).toBe(400);
   expect(await res.json()).toEqual({ error: "The out-of-service range must end after it starts.", field: "end" });
   await expectNoAxeViolations(reception);
+});
+
+test("the clinic manager's settings pages validate, save, and pass axe-core", async ({ browser }) => {
+  test.setTimeout(240_000);
+  const admin = await signedInPage(browser, "admin@cuspal.test");
+  await admin.getByRole("link", { name: "Settings" }).click();
+  await expect(admin.getByRole("heading", { name: "Clinic settings" })).toBeVisible();
+  for (const path of ["hours", "equipment", "durations", "stage-times", "booking", "staff"]) {
+    await admin.goto(`/clinic/settings/${path}`);
+    await expect(admin.getByRole("heading", { level: 1 })).toBeVisible();
+    await expectNoAxeViolations(admin);
+  }
+
+  // A closed day far ahead is added and removed again, each change audited.
+  const closedDayAudits = async () => {
+    const { rows } = await db.query(
+      "SELECT count(*) FILTER (WHERE action = 'settings.closed_day_added')::int AS added, count(*) FILTER (WHERE action = 'settings.closed_day_removed')::int AS removed FROM audit_events WHERE data->>'day' = '2031-07-14'",
+    );
+    return rows[0] as { added: number; removed: number };
+  };
+  const before = await closedDayAudits();
+  await admin.goto("/clinic/settings/hours");
+  await admin.getByLabel("Date", { exact: true }).fill("2031-07-14");
+  await admin.getByLabel("Reason (optional)").fill("Staff training");
+  await admin.getByRole("button", { name: "Add closed day" }).click();
+  await expect(admin.getByRole("status")).toHaveText("Closed day added.");
+  await admin.getByRole("button", { name: "Remove 2031-07-14" }).click();
+  await expect(admin.getByRole("status")).toHaveText("Closed day removed.");
+  expect(await closedDayAudits()).toEqual({ added: before.added + 1, removed: before.removed + 1 });
+  expect((await db.query("SELECT 1 FROM closed_days WHERE day = '2031-07-14'")).rowCount).toBe(0);
+
+  // The same schema checks the form in the browser: closing before opening is refused there.
+  await admin.getByLabel("Closes, interval 1", { exact: true }).fill("07:00");
+  await admin.getByRole("button", { name: "Save opening hours" }).click();
+  await expect(admin.getByText("Closing must come after opening.")).toBeVisible();
+
+  // A staff password that is too short is refused with a clear message; nothing is created.
+  await admin.goto("/clinic/settings/staff");
+  await admin.getByLabel("Name", { exact: true }).fill("Ivo Marchetti-Lund");
+  await admin.getByLabel("E-mail", { exact: true }).fill("ivo.marchetti-lund@cuspal.test");
+  await admin.getByLabel(/First password/).fill("short");
+  await admin.getByRole("button", { name: "Create account" }).click();
+  await expect(admin.getByText("Use at least 12 characters; they can change it later.")).toBeVisible();
+  expect((await db.query("SELECT 1 FROM users WHERE email = 'ivo.marchetti-lund@cuspal.test'")).rowCount).toBe(0);
+});
+
+test("settings are for the clinic manager only", async ({ browser }) => {
+  const dentist = await signedInPage(browser, "dentist@cuspal.test");
+  await expect(dentist.getByRole("link", { name: "Settings" })).toHaveCount(0);
+  await dentist.goto("/clinic/settings/staff");
+  await expect(dentist).toHaveURL(/\/clinic$/);
+  const patient = await (await browser.newContext()).newPage();
+  await signIn(patient, "patient@cuspal.test");
+  await expect(patient).toHaveURL(/\/patient$/);
+  expect((await patient.request.get("/api/board")).status()).toBe(403);
+  expect((await patient.request.post(`/api/appointments/${tobiasVisit}/lot`, { data: { lot: "X1" } })).status()).toBe(403);
 });
