@@ -61,7 +61,16 @@ export async function markStage(opts: {
     await stage.update(mark.action === "start" ? { actualStart: at } : { actualEnd: at }, { transaction });
     const from = visit.status;
     // An instance update, so model hooks (the consent guard) can refuse it and roll everything back.
-    if (check.statusAfter) await visit.update({ status: check.statusAfter }, { transaction });
+    if (check.statusAfter) {
+      try {
+        await visit.update({ status: check.statusAfter }, { transaction });
+      } catch (err) {
+        if (err instanceof AppError && err.options.code === "consent_required") {
+          throw new AppError(409, `${err.message} Nothing was recorded: the dentist reviews the signed consent (Consents, or this visit's consent section) first.`, { code: "consent_required" });
+        }
+        throw err;
+      }
+    }
 
     await recordAudit(
       {

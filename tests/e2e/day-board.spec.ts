@@ -64,10 +64,12 @@ test.beforeAll(async () => {
   tobiasVisit = await visitOf("Tobias Renfrew");
   marisolVisit = await visitOf("Marisol Akande");
   await resetVisit(tobiasVisit);
+  await resetVisit(marisolVisit);
 });
 
 test.afterAll(async () => {
   await resetVisit(tobiasVisit);
+  await resetVisit(marisolVisit);
   await db.end();
 });
 
@@ -230,4 +232,22 @@ test("settings are for the clinic manager only", async ({ browser }) => {
   await expect(patient).toHaveURL(/\/patient$/);
   expect((await patient.request.get("/api/board")).status()).toBe(403);
   expect((await patient.request.post(`/api/appointments/${tobiasVisit}/lot`, { data: { lot: "X1" } })).status()).toBe(403);
+});
+
+test("treatment does not start before the consent is reviewed, and staff are told why", async ({ browser }) => {
+  test.setTimeout(180_000);
+  const { rows } = await db.query("SELECT count(*)::int AS n FROM consents WHERE appointment_id = $1 AND status = 'reviewed'", [marisolVisit]);
+  test.skip(rows[0].n > 0, "Marisol's consent has been reviewed in this database");
+  const reception = await signedInPage(browser, "reception@cuspal.test");
+  await reception.goto(`/clinic/visits/${marisolVisit}`);
+  await reception.getByRole("button", { name: "Start check-in", exact: true }).click();
+  await expect(reception.getByTestId("progress-done")).toContainText("Check-in started at");
+  await reception.getByRole("button", { name: "Finish check-in", exact: true }).click();
+  await expect(reception.getByTestId("progress-done")).toContainText("Check-in finished at");
+  await reception.getByRole("button", { name: "Start anaesthesia", exact: true }).click();
+  await expect(reception.getByTestId("progress-error")).toHaveText(/^Consent must be signed and reviewed before treatment starts\. Nothing was recorded/);
+  const stages = await db.query("SELECT key, actual_start FROM appointment_stages WHERE appointment_id = $1 AND key IN ('check_in', 'anaesthesia') ORDER BY seq", [marisolVisit]);
+  expect(stages.rows.map((r) => [r.key, r.actual_start !== null])).toEqual([["check_in", true], ["anaesthesia", false]]);
+  expect((await db.query("SELECT status FROM appointments WHERE id = $1", [marisolVisit])).rows[0].status).toBe("checked_in");
+  await expectNoAxeViolations(reception);
 });
