@@ -25,6 +25,10 @@ export async function VisitBlocks({ visitId, clinicId, zone, canRecord, open }: 
         </ul>
       )}
       {canRecord && open ? <BlockLotForm visitId={visitId} /> : null}
+      <p className="text-sm text-ink-muted">
+        Cuspal checks the code and the date it is given; check the package and the block themselves before use. The dentist&apos;s
+        judgment, local regulations and licensed practice prevail.
+      </p>
     </div>
   );
 }
