@@ -25,7 +25,7 @@ export function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: NavIte
           <ul className="flex gap-1 pb-2">
             {nav.map((item) => (
               <li key={item.href}>
-                <Link href={item.href} className="inline-block min-h-10 rounded-md px-3 py-2 text-sm font-semibold text-ink-soft no-underline hover:bg-paper-deep hover:no-underline">
+                <Link href={item.href} className="inline-block min-h-10 whitespace-nowrap rounded-md px-3 py-2 text-sm font-semibold text-ink-soft no-underline hover:bg-paper-deep hover:no-underline">
                   {item.label}
                 </Link>
               </li>
