@@ -59,9 +59,9 @@ export async function run300(): Promise<Record<string, string | number>> {
     const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: material.id, mode: "rapid", tooth: proposal.tooth });
     const rules = await loadRules(clinic);
     const resources = await loadResources(clinic.id, dentist.id);
-    // Three chairs hold about a dozen visits a day, so 300 visits spread over the next eight weeks,
-    // one day at a time, on the first free slot of that day.
-    const day = addDays(from, i % 56);
+    // One dentist's hands-on windows and one furnace limit a day to a handful of crowns, so 300 visits
+    // spread over the next ten weeks, one day at a time, on the first free slot of that day.
+    const day = addDays(from, i % 72);
     const busy = await loadBusy({ clinicId: clinic.id, resources, from: zonedTime(day, "00:00", clinic.timeZone), to: zonedTime(addDays(day, 1), "00:00", clinic.timeZone) });
     const daySlots = findSlots({ timeline, rules, resources, busy, from: day, days: 1, now });
     const slot = daySlots[0] ?? null;
