@@ -1,16 +1,6 @@
 import { expect, test, type Browser } from "@playwright/test";
-import pg from "pg";
-import { expectNoAxeViolations, signIn } from "./support";
+import { expectNoAxeViolations, signIn, query } from "./support";
 
-async function query<T>(sql: string, params: unknown[] = []): Promise<T[]> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
-    return (await client.query(sql, params)).rows as T[];
-  } finally {
-    await client.end();
-  }
-}
 
 async function signedInPage(browser: Browser, email: string, viewport = { width: 390, height: 844 }) {
   const context = await browser.newContext({ viewport });

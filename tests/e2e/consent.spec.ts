@@ -4,20 +4,10 @@
 // the patient's copy arrives in the mail catcher (the worker, which `npm test` starts, sends it).
 import { createHash } from "node:crypto";
 import { expect, test, type Page } from "@playwright/test";
-import pg from "pg";
-import { expectNoAxeViolations, signIn } from "./support";
+import { expectNoAxeViolations, signIn, query } from "./support";
 
 const catcher = process.env.MAIL_CATCHER_URL;
 
-async function query<T>(sql: string, params: unknown[] = []): Promise<T[]> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
-    return (await client.query(sql, params)).rows as T[];
-  } finally {
-    await client.end();
-  }
-}
 
 /** The demo patient's seeded upcoming visit (tooth 15, confirmed), whose consent the patient signs here. */
 async function zoeVisit(): Promise<string> {

@@ -2,20 +2,10 @@
 // reception opens it from the patient's page. Checks the screen, the stored bytes and the database.
 import { expect, test, type Page } from "@playwright/test";
 import exifr from "exifr";
-import pg from "pg";
 import sharp from "sharp";
 import { jpegWithGps, SAMPLE_GPS } from "../support/sample-files";
-import { expectNoAxeViolations, signIn } from "./support";
+import { expectNoAxeViolations, signIn, query } from "./support";
 
-async function query<T>(sql: string, params: unknown[]): Promise<T[]> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
-    return (await client.query(sql, params)).rows as T[];
-  } finally {
-    await client.end();
-  }
-}
 
 /** A photo-sized JPEG (noise does not compress, so the upload takes a moment) with a GPS block. */
 async function phonePhoto(): Promise<Buffer> {

@@ -2,21 +2,11 @@
 // file (needs the worker, which `npm test` starts), and the reminder link page works on a phone.
 import { expect, test, type APIRequestContext } from "@playwright/test";
 import ICAL from "ical.js";
-import pg from "pg";
 import { reminderToken } from "../../lib/mail/reminder-token";
-import { expectNoAxeViolations, signIn } from "./support";
+import { expectNoAxeViolations, signIn, query } from "./support";
 
 const catcher = process.env.MAIL_CATCHER_URL;
 
-async function query<T>(sql: string, params: unknown[] = []): Promise<T[]> {
-  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await client.connect();
-  try {
-    return (await client.query(sql, params)).rows as T[];
-  } finally {
-    await client.end();
-  }
-}
 
 /** A visit of its own for an invented demo patient, weeks ahead, so no other spec sees it. */
 async function insertVisit(status: "requested" | "confirmed", daysAhead: number): Promise<{ id: string; startsAt: Date; email: string }> {

@@ -1,6 +1,7 @@
 // Shared steps for browser tests: signing in as a demo account and checking accessibility.
 import AxeBuilder from "@axe-core/playwright";
 import { expect, type Page } from "@playwright/test";
+import pg from "pg";
 
 export const DEMO_PASSWORD = "cuspal-demo";
 
@@ -18,4 +19,15 @@ export async function expectNoAxeViolations(page: Page) {
   const results = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"]).analyze();
   const summary = results.violations.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`);
   expect(summary, "axe-core violations").toEqual([]);
+}
+
+/** One query against the test database, to check what the screens wrote. */
+export async function query<T>(sql: string, params: unknown[] = []): Promise<T[]> {
+  const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await client.connect();
+  try {
+    return (await client.query(sql, params)).rows as T[];
+  } finally {
+    await client.end();
+  }
 }
