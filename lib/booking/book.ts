@@ -58,8 +58,13 @@ async function alternatives(proposal: Proposal, materialId: string, mode: Mode, 
   return nearest(slots, wanted, 3).map((s) => ({ start: isoInZone(s.start, zone), end: isoInZone(s.end, zone) }));
 }
 
+// Lost races between concurrent bookings: an overlapping reservation (23P01), or PostgreSQL
+// breaking a deadlock between two inserts into the same exclusion index (40P01) or a serialisation
+// failure (40001). All are retried with fresh data, then answered with 409 and alternatives.
+const RACE_CODES = new Set(["23P01", "40P01", "40001"]);
+
 function isRaceLoss(err: unknown) {
-  return err instanceof SlotTaken || err instanceof ExclusionConstraintError || (err as { parent?: { code?: string } })?.parent?.code === "23P01";
+  return err instanceof SlotTaken || err instanceof ExclusionConstraintError || RACE_CODES.has(String((err as { parent?: { code?: string } })?.parent?.code));
 }
 
 export async function bookVisit(opts: { proposalId: string; materialId: string; mode: Mode; start: Date; actor: Actor; now?: Date }) {
