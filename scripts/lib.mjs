@@ -225,6 +225,8 @@ export async function startService(name, cmd, args, { port, env = {} } = {}) {
 }
 
 function alive(pid) {
+  // An emptied pid file reads as 0, and kill(0) would signal our own process group.
+  if (!Number.isInteger(pid) || pid <= 0) return false;
   try {
     process.kill(pid, 0);
     return true;
