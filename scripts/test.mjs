@@ -12,7 +12,10 @@ const [only, ...extra] = process.argv.slice(2);
 const wantUnit = !only || only === "unit";
 const wantE2e = !only || only === "e2e";
 
-const ports = { db: "cuspal_test", appPort: 3100, smtpPort: 1125, mailWebPort: 1180, s3Port: 4579 };
+// CUSPAL_TEST_PORT_OFFSET moves every test port, so two checkouts can run their tests at once
+// (give each its own CUSPAL_PG_PORT too).
+const offset = Number(process.env.CUSPAL_TEST_PORT_OFFSET ?? 0);
+const ports = { db: "cuspal_test", appPort: 3100 + offset, smtpPort: 1125 + offset, mailWebPort: 1180 + offset, s3Port: 4579 + offset };
 ensureDependencies();
 if (wantE2e) ensureChromium();
 const startedPg = await ensurePostgres();
