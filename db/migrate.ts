@@ -1,4 +1,5 @@
 // Runs the migrations in db/migrations with umzug: `tsx db/migrate.ts up|down [--to NAME]`.
+import "./as-owner";
 import { sequelize } from "./sequelize";
 import { migrator } from "./migrator";
 

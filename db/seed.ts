@@ -1,5 +1,6 @@
 // `npm run db:seed [-- --reset]`: loads the invented demo clinic. Without --reset an existing
 // demo clinic is kept as it is; with --reset every table is emptied first.
+import "./as-owner";
 import { sequelize } from "./sequelize";
 import { seedDemo } from "./seed/demo";
 

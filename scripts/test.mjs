@@ -24,7 +24,7 @@ await ensureDatabases(["cuspal_test", "cuspal_test_migrations"], { fresh: ["cusp
 const env = {
   ...process.env,
   ...appEnv(ports),
-  MIGRATIONS_DATABASE_URL: process.env.MIGRATIONS_DATABASE_URL ?? appEnv(ports).DATABASE_URL.replace(/\/cuspal_test$/, "/cuspal_test_migrations"),
+  MIGRATIONS_DATABASE_URL: process.env.MIGRATIONS_DATABASE_URL ?? appEnv(ports).OWNER_DATABASE_URL.replace(/\/cuspal_test$/, "/cuspal_test_migrations"),
   NEXT_DIST_DIR: ".next-test",
   CUSPAL_TEST: "1",
 };

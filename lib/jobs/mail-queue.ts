@@ -34,6 +34,8 @@ export function getBoss({ supervise = false }: { supervise?: boolean } = {}): Pr
       application_name: "cuspal-mail",
       supervise,
       schedule: false,
+      // Its schema is installed by migration 0008 as the owner; the app's role may not change it.
+      migrate: false,
     });
     boss.on("error", (err) => console.error("Job queue error:", err.message));
     await boss.start();
