@@ -5,7 +5,7 @@ import { Appointment, Clinic, MailAttempt, MailOutbox, sequelize } from "@/db/mo
 import type { MailKind, OutboxState } from "@/db/models/mail";
 import type { SessionUser } from "@/lib/auth/session";
 import { findVisitFor } from "@/lib/booking/transitions";
-import { verifyReminderToken } from "@/lib/mail/reminder-token";
+import { linkMatchesVisit, verifyReminderToken } from "@/lib/mail/reminder-token";
 import { recordAudit } from "@/lib/server/audit";
 import { conflict, forbidden, notFound } from "@/lib/server/errors";
 
@@ -78,10 +78,17 @@ export async function getDeliveryLog({ user, appointmentId, now = new Date() }: 
 
 type ChangeInfo = { ip?: string | null; userAgent?: string | null };
 
-async function setReminders(appointmentId: string, enabled: boolean, actorUserId: string | null, via: string, info: ChangeInfo) {
+async function setReminders(
+  appointmentId: string,
+  enabled: boolean,
+  actorUserId: string | null,
+  via: string,
+  info: ChangeInfo,
+  accept: (visit: Appointment) => boolean = () => true,
+) {
   return sequelize.transaction(async (transaction) => {
     const visit = await Appointment.findByPk(appointmentId, { transaction, lock: transaction.LOCK.UPDATE });
-    if (!visit) throw notFound("That visit");
+    if (!visit || !accept(visit)) throw notFound("That visit");
     if (visit.remindersEnabled === enabled) return visit;
     if (enabled && !["requested", "confirmed"].includes(visit.status)) {
       throw conflict(`This visit is ${visit.status.replace("_", " ")}, so there is nothing to remind you of.`);
@@ -109,18 +116,19 @@ export async function setVisitReminders({ user, appointmentId, enabled, ...info 
 
 /** Through the link in a reminder e-mail: the signed token stands in for a session. */
 export async function setRemindersByToken({ token, enabled, ...info }: { token: string; enabled: boolean } & ChangeInfo) {
-  const id = verifyReminderToken(token);
-  if (!id) throw notFound("That link");
-  const updated = await setReminders(id, enabled, null, "e-mail link", info);
+  const verified = verifyReminderToken(token);
+  if (!verified) throw notFound("That link");
+  // A link sent before the visit moved was replaced by the one in the newer e-mail.
+  const updated = await setReminders(verified.id, enabled, null, "e-mail link", info, (visit) => linkMatchesVisit(verified, visit));
   return { remindersEnabled: updated.remindersEnabled };
 }
 
-/** What the link page shows: the clinic, the visit time and whether reminders are on. Null for a bad link. */
+/** What the link page shows: the clinic, the visit time and whether reminders are on. Null for a bad, expired or replaced link. */
 export async function visitForReminderToken(token: string) {
-  const id = verifyReminderToken(token);
-  if (!id) return null;
-  const visit = await Appointment.findByPk(id, { attributes: ["id", "clinicId", "startsAt", "endsAt", "status", "remindersEnabled"] });
-  if (!visit) return null;
+  const verified = verifyReminderToken(token);
+  if (!verified) return null;
+  const visit = await Appointment.findByPk(verified.id, { attributes: ["id", "clinicId", "startsAt", "endsAt", "status", "remindersEnabled"] });
+  if (!visit || !linkMatchesVisit(verified, visit)) return null;
   const clinic = await Clinic.findByPk(visit.clinicId, { attributes: ["name", "timeZone", "phone"] });
   // Reminders can only be turned back on for a visit still to come.
   const upcoming = ["requested", "confirmed"].includes(visit.status) && visit.startsAt.getTime() > Date.now();

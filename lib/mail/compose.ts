@@ -220,11 +220,11 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
       break;
     }
     case "reminder": {
-      element = createElement(ReminderEmail, { ...props, leadText: timeUntilWords(now, visit.startsAt), turnOffUrl: reminderLink(visit.id) });
+      element = createElement(ReminderEmail, { ...props, leadText: timeUntilWords(now, visit.startsAt), turnOffUrl: reminderLink(visit.id, visit.startsAt) });
       subject = `Reminder: your crown visit on ${at}`;
       attachments.push(calendarAttachment(row, visit, false));
       // One-click opt-out from the mail program itself (RFC 8058): a POST, never a GET.
-      headers["List-Unsubscribe"] = `<${reminderOneClickUrl(visit.id)}>`;
+      headers["List-Unsubscribe"] = `<${reminderOneClickUrl(visit.id, visit.startsAt)}>`;
       headers["List-Unsubscribe-Post"] = "List-Unsubscribe=One-Click";
       break;
     }

@@ -75,7 +75,7 @@ test.describe("visit e-mail", () => {
 
   test("the reminder link turns reminders off and back on from a phone; a forged link does nothing", async ({ page, request }) => {
     const visit = await insertVisit("confirmed", 50);
-    const token = reminderToken(visit.id);
+    const token = reminderToken(visit.id, visit.startsAt);
     const enabled = async () => (await query<{ on: boolean }>(`SELECT reminders_enabled AS on FROM appointments WHERE id = $1`, [visit.id]))[0].on;
 
     await page.goto(`/reminders/${token}`);

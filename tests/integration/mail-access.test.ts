@@ -1,7 +1,7 @@
 // Who may see a visit's delivery log and change its reminders: patients their own visits only
 // (someone else's is a 404), staff their own clinic's; the signed link works without a session.
 import { describe, expect, it, beforeAll } from "vitest";
-import { AuditEvent, MailOutbox } from "@/db/models";
+import { AuditEvent, MailOutbox, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { getDeliveryLog, setRemindersByToken, setVisitReminders, visitForReminderToken } from "@/lib/data/mail";
 import { reminderToken } from "@/lib/mail/reminder-token";
@@ -49,23 +49,47 @@ describe("reminder switch", () => {
 
   it("works from the signed e-mail link, and a forged link is a 404", async () => {
     const { visit } = await createVisit(t, { startsAt: inDays(5), status: "confirmed" });
-    const token = reminderToken(visit.id);
+    const token = reminderToken(visit.id, visit.startsAt);
     expect((await visitForReminderToken(token))?.visit.id).toBe(visit.id);
     expect(await setRemindersByToken({ token, enabled: false })).toEqual({ remindersEnabled: false });
     const audit = await AuditEvent.findOne({ where: { subjectId: visit.id, action: "visit.reminders_off" } });
     expect(audit?.actorUserId).toBeNull();
     expect(audit?.data).toEqual({ via: "e-mail link" });
-    const forged = `${visit.id}.${"A".repeat(43)}`;
+    const forged = `${token.split(".").slice(0, 2).join(".")}.${"A".repeat(43)}`;
     expect(await visitForReminderToken(forged)).toBeNull();
     expect(await status(setRemindersByToken({ token: forged, enabled: true }))).toBe(404);
     await visit.reload();
     expect(visit.remindersEnabled).toBe(false);
   });
 
+  it("stops working once the visit moved (the newer e-mail's link replaces it)", async () => {
+    const { visit } = await createVisit(t, { startsAt: inDays(5), status: "confirmed" });
+    const old = reminderToken(visit.id, visit.startsAt);
+    await visit.update({ startsAt: inDays(6), endsAt: new Date(inDays(6).getTime() + 150 * 60_000) });
+    expect(await visitForReminderToken(old)).toBeNull();
+    expect(await status(setRemindersByToken({ token: old, enabled: false }))).toBe(404);
+    await visit.reload();
+    expect(visit.remindersEnabled).toBe(true);
+    const fresh = reminderToken(visit.id, visit.startsAt);
+    expect((await visitForReminderToken(fresh))?.visit.id).toBe(visit.id);
+  });
+
+  it("stops working 30 days after the visit", async () => {
+    const { visit } = await createVisit(t, { startsAt: inDays(5), status: "confirmed" });
+    const past = new Date(Date.now() - 31 * 24 * 3600 * 1000);
+    await visit.update({ status: "cancelled" });
+    await sequelize.query("UPDATE appointments SET starts_at = $2, ends_at = $3 WHERE id = $1", {
+      bind: [visit.id, past, new Date(past.getTime() + 150 * 60_000)],
+    });
+    const expired = reminderToken(visit.id, past);
+    expect(await visitForReminderToken(expired)).toBeNull();
+    expect(await status(setRemindersByToken({ token: expired, enabled: false }))).toBe(404);
+  });
+
   it("cannot turn reminders on for a visit that has ended", async () => {
     const { visit } = await createVisit(t, { startsAt: inDays(5), status: "confirmed", remindersEnabled: false });
     await visit.update({ status: "cancelled" });
-    expect(await status(setRemindersByToken({ token: reminderToken(visit.id), enabled: true }))).toBe(409);
+    expect(await status(setRemindersByToken({ token: reminderToken(visit.id, visit.startsAt), enabled: true }))).toBe(409);
   });
 });
 

@@ -23,7 +23,7 @@ export default async function ReminderLinkPage({ params, searchParams }: {
       {!found ? (
         <section className="card space-y-2">
           <h1 className="text-2xl font-bold">This link does not work</h1>
-          <p className="text-ink-soft">It may have been copied only in part. Open it again from the e-mail, or sign in to change your reminders on your visit page.</p>
+          <p className="text-ink-soft">Links stop working 30 days after the visit, and a newer e-mail about a moved visit replaces the link in older ones. It may also have been copied only in part. Open the latest e-mail, or sign in to change your reminders on your visit page.</p>
           <p><Link href="/sign-in">Sign in</Link></p>
         </section>
       ) : (
