@@ -1,7 +1,16 @@
 // Environment variables, validated once with zod so a missing setting fails with a clear message.
+// In production (NODE_ENV=production) nothing may fall back to a local default: the storage keys
+// must be set and must not be the published keys of the local storage fake, NEXTAUTH_SECRET must
+// be long, and the clinic seal certificate must be configured. `npm run demo` and `npm test` run
+// the built app in production mode too; they pass random secrets of their own (kept in .data) and
+// start the storage fake with those keys, so they pass the same checks.
 import { z } from "zod";
 
-const schema = z.object({
+/** The keys every copy of the local storage fake (s3rver) accepts out of the box: never for real data. */
+export const FAKE_STORAGE_KEY = "S3RVER";
+export const MIN_PRODUCTION_SECRET = 32;
+
+const base = z.object({
   DATABASE_URL: z.string().url({ message: "DATABASE_URL must be a PostgreSQL URL" }),
   NEXTAUTH_SECRET: z.string().min(16, { message: "NEXTAUTH_SECRET must be at least 16 characters" }),
   APP_URL: z.string().url().default("http://localhost:3000"),
@@ -10,22 +19,45 @@ const schema = z.object({
   S3_ENDPOINT: z.string().url().default("http://127.0.0.1:4569"),
   S3_BUCKET: z.string().min(3).default("cuspal-documents"),
   S3_REGION: z.string().default("us-east-1"),
-  S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
-  S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
+  S3_ACCESS_KEY_ID: z.string().default(FAKE_STORAGE_KEY),
+  S3_SECRET_ACCESS_KEY: z.string().default(FAKE_STORAGE_KEY),
   SEAL_CERT_PATH: z.string().optional(),
   SEAL_CERT_PASSWORD: z.string().optional(),
 });
 
-export type Env = z.infer<typeof schema>;
+const present = (name: string) => z.string({ message: `${name} must be set in production` }).min(1, { message: `${name} must be set in production` });
+const notFake = (name: string) =>
+  present(name).refine((v) => v !== FAKE_STORAGE_KEY, { message: `${name} is the local storage fake's published key; set your storage's real key` });
+
+// Production: the same fields, without the defaults that only make sense on a developer's machine.
+const production = base.extend({
+  NEXTAUTH_SECRET: present("NEXTAUTH_SECRET").min(MIN_PRODUCTION_SECRET, {
+    message: `NEXTAUTH_SECRET must be at least ${MIN_PRODUCTION_SECRET} random characters in production (e.g. \`openssl rand -base64 32\`)`,
+  }),
+  S3_ACCESS_KEY_ID: notFake("S3_ACCESS_KEY_ID"),
+  S3_SECRET_ACCESS_KEY: notFake("S3_SECRET_ACCESS_KEY"),
+  SEAL_CERT_PATH: present("SEAL_CERT_PATH"),
+  SEAL_CERT_PASSWORD: present("SEAL_CERT_PASSWORD"),
+});
+
+export type Env = z.infer<typeof base>;
 let cached: Env | undefined;
 
-export function env(): Env {
-  if (cached) return cached;
-  const parsed = schema.safeParse(process.env);
+/** Validates `source` (process.env by default); throws one message listing every problem. */
+export function parseEnv(source: Record<string, string | undefined> = process.env): Env {
+  const isProduction = source.NODE_ENV === "production";
+  const parsed = (isProduction ? production : base).safeParse(source);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`).join("\n");
-    throw new Error(`Cuspal is not configured:\n${lines}\nStart it with \`npm run demo\`, which sets these.`);
+    const hint = isProduction
+      ? "Production refuses local defaults; see “Running in production” in README.md."
+      : "Start it with `npm run demo`, which sets these.";
+    throw new Error(`Cuspal is not configured:\n${lines}\n${hint}`);
   }
-  cached = parsed.data;
+  return parsed.data;
+}
+
+export function env(): Env {
+  cached ??= parseEnv();
   return cached;
 }

@@ -20,7 +20,7 @@ say("Loading the demo clinic (kept if already there)…");
 mustRun(bin("tsx"), ["db/seed.ts"], { env });
 
 await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort });
-await startStorage({ port: ports.s3Port });
+await startStorage({ port: ports.s3Port, keys: env });
 await startService("worker", bin("tsx"), ["lib/jobs/worker-main.ts"], { env });
 
 say("Building the app…");

@@ -288,8 +288,10 @@ export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port }) {
     S3_ENDPOINT: process.env.S3_ENDPOINT ?? `http://127.0.0.1:${s3Port}`,
     S3_BUCKET: process.env.S3_BUCKET ?? "cuspal-documents",
     S3_REGION: process.env.S3_REGION ?? "us-east-1",
-    S3_ACCESS_KEY_ID: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
-    S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
+    // Keys of our own for the storage fake (startStorage hands them to it), never its published
+    // default: the built app runs with NODE_ENV=production, which refuses that default.
+    S3_ACCESS_KEY_ID: process.env.S3_ACCESS_KEY_ID ?? "cuspal-local",
+    S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? localSecret("storage"),
     SEAL_CERT_PATH: process.env.SEAL_CERT_PATH ?? path.join(dataDir, "seal", "clinic-seal.p12"),
     SEAL_CERT_PASSWORD: process.env.SEAL_CERT_PASSWORD ?? localSecret("seal"),
   };
@@ -301,11 +303,15 @@ export async function startMailCatcher({ smtpPort, webPort, name = "mail-catcher
   ], { port: webPort });
 }
 
-export async function startStorage({ port, name = "storage" }) {
+/** Starts the storage fake accepting only `keys` (the app's S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY). */
+export async function startStorage({ port, name = "storage", keys }) {
   const dir = path.join(dataDir, `${name}-files`);
   mkdirSync(dir, { recursive: true });
   return startService(name, process.execPath, [path.join(root, "scripts", "storage.mjs")], {
     port,
-    env: { S3_PORT: String(port), S3_DIR: dir, S3_BUCKET: process.env.S3_BUCKET ?? "cuspal-documents" },
+    env: {
+      S3_PORT: String(port), S3_DIR: dir, S3_BUCKET: process.env.S3_BUCKET ?? "cuspal-documents",
+      S3_ACCESS_KEY_ID: keys.S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY: keys.S3_SECRET_ACCESS_KEY,
+    },
   });
 }

@@ -36,7 +36,7 @@ say("Migrating the test database…");
 mustRun(bin("tsx"), ["db/migrate.ts", "up"], { env });
 mustRun(bin("tsx"), ["scripts/make-seal-certificate.ts"], { env }, "Creating the clinic seal certificate");
 await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort, name: "test-mail-catcher" });
-await startStorage({ port: ports.s3Port, name: "test-storage" });
+await startStorage({ port: ports.s3Port, name: "test-storage", keys: env });
 
 const totals = { passed: 0, failed: 0, skipped: 0 };
 let broken = false;
