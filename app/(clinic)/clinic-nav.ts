@@ -1,4 +1,4 @@
-import type { Role } from "@/db/models/user";
+import type { Role } from "@/lib/domain/types";
 import type { NavItem } from "@/components/site-header";
 
 /** The clinic sections each staff role sees in the header. */

@@ -1,4 +1,4 @@
-import type { ConsentStatus } from "@/db/models/consent";
+import type { ConsentStatus } from "@/lib/domain/types";
 
 // Our palette; the words carry the meaning and colour only supports them.
 const STATUS: Record<ConsentStatus, { label: string; tone: string }> = {

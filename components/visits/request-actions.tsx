@@ -2,7 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { SlotPicker, type SlotOption } from "@/app/(patient)/patient/proposals/[id]/slot-picker";
+import { SlotPicker, type SlotOption } from "./slot-picker";
 
 type Props = { visitId: string; proposalId: string; materialId: string; mode: string; timezone: string; patientName: string };
 

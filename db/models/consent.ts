@@ -4,8 +4,9 @@ import type { ConsentFlag, QuestionnaireAnswers } from "@/lib/domain/consent-que
 import type { SectionKey, TemplateSection } from "@/lib/domain/consent-text";
 import type { Appointment } from "./appointment";
 
-export const CONSENT_STATUSES = ["pending", "signed", "reviewed", "withdrawn"] as const;
-export type ConsentStatus = (typeof CONSENT_STATUSES)[number];
+import { CONSENT_STATUSES, type ConsentStatus } from "@/lib/domain/types";
+
+export { CONSENT_STATUSES, type ConsentStatus };
 
 /** One version of a clinic's consent text. Published versions never change (a trigger refuses it). */
 export class ConsentTemplate extends Model<InferAttributes<ConsentTemplate>, InferCreationAttributes<ConsentTemplate>> {

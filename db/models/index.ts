@@ -15,7 +15,6 @@ import { Patient } from "./patient";
 import { Proposal, ProposalMaterial } from "./proposal";
 import { SignInAttempt } from "./sign-in-attempt";
 import { User } from "./user";
-import { registerVisitMailHooks } from "@/lib/mail/visit-hooks";
 
 // Next bundles pages and route handlers into separate module graphs, each with its own copy of
 // the model classes; so whether this is done is read from this copy's classes, not from a
@@ -67,9 +66,6 @@ if (!Object.hasOwn(User.associations, "patient")) {
   Appointment.hasMany(Consent, { foreignKey: "appointmentId", as: "consents" });
   registerConsentGuard();
 }
-
-// Per model class (not behind the flag above): a second copy of this module must not lose the e-mail hooks.
-registerVisitMailHooks(Appointment);
 
 export {
   sequelize, Appointment, AppointmentStage, AuditEvent, BlockLot, Clinic, ClosedDay, Consent, ConsentPdf, ConsentTemplate, Equipment, EquipmentOutage,

@@ -1,8 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "../sequelize";
 
-export const ROLES = ["patient", "reception", "dentist", "admin"] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from "@/lib/domain/types";
+
+export { ROLES, type Role };
 
 /** A person who signs in. Also the `User` model of next-auth's Sequelize adapter. */
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {

@@ -4,6 +4,7 @@ import { migrator } from "@/db/migrator";
 import { seedClinic } from "./demo-clinic";
 import { seedConsents } from "./demo-consents";
 import { seedProposals } from "./demo-proposals";
+import "@/lib/mail/hooks";
 
 export const DEMO_IN_PRODUCTION_MESSAGE =
   "Refusing to load the demo clinic with NODE_ENV=production: its accounts share a published password.";

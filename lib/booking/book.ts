@@ -15,6 +15,7 @@ import { AppError, badRequest, conflict, notFound } from "@/lib/server/errors";
 import { loadBusy, loadResources, loadRules, loadTimeline } from "./context";
 import { writeSchedule } from "./schedule";
 import { searchSlots } from "./search";
+import "@/lib/mail/hooks";
 
 const MIN = 60_000;
 const ATTEMPTS = 3;

@@ -7,6 +7,7 @@ import type { AppointmentStatus } from "@/lib/domain/types";
 import { recordAudit } from "@/lib/server/audit";
 import { conflict, forbidden, notFound } from "@/lib/server/errors";
 import { rescheduleVisit, type Actor } from "./book";
+import "@/lib/mail/hooks";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 

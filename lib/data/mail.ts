@@ -8,6 +8,7 @@ import { findVisitFor } from "@/lib/booking/transitions";
 import { linkMatchesVisit, verifyReminderToken } from "@/lib/mail/reminder-token";
 import { recordAudit } from "@/lib/server/audit";
 import { conflict, forbidden, notFound } from "@/lib/server/errors";
+import "@/lib/mail/hooks";
 
 export type DeliveryStatus = "scheduled" | "sending" | "sent" | "retrying" | "failed" | "skipped" | "withdrawn";
 

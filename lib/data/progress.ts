@@ -14,6 +14,7 @@ import { recordAudit } from "@/lib/server/audit";
 import { AppError, notFound, unprocessable } from "@/lib/server/errors";
 import { loadBoard, type BoardConflict, type BoardVisit } from "./board";
 import { listLotsForVisit } from "./lots";
+import "@/lib/mail/hooks";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 

@@ -6,7 +6,7 @@ import type { SessionUser } from "@/lib/auth/session";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
 import { describeTooth } from "@/lib/domain/tooth";
 import { recordAudit } from "@/lib/server/audit";
-import { notFound, unprocessable } from "@/lib/server/errors";
+import { forbidden, notFound, unprocessable } from "@/lib/server/errors";
 import { assertCanSee, patientOf } from "./access";
 import type { ProposalInput } from "@/lib/booking/schemas";
 
@@ -90,4 +90,17 @@ export async function createProposal({ user, input, ip, userAgent }: { user: Ses
     await recordAudit({ clinicId: user.clinicId, actorUserId: user.id, action: "proposal.created", subjectType: "proposal", subjectId: proposal.id, ip, userAgent, data: { tooth: input.tooth } }, transaction);
     return proposal;
   });
+}
+
+/** The choices on the new-proposal form: the clinic's patients and active dentists. Dentists and managers only. */
+export async function proposalFormChoices({ user }: { user: SessionUser }) {
+  if (user.role !== "dentist" && user.role !== "admin") throw forbidden();
+  const [patients, dentists] = await Promise.all([
+    Patient.findAll({ where: { clinicId: user.clinicId! }, include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
+    User.findAll({ where: { clinicId: user.clinicId!, role: "dentist", active: true }, attributes: ["id", "name"] }),
+  ]);
+  return {
+    patients: patients.map((p) => ({ id: p.id, name: p.user?.name ?? p.user?.email ?? "Patient" })).sort((a, b) => a.name.localeCompare(b.name)),
+    dentists: dentists.map((d) => ({ id: d.id, name: d.name ?? "Dentist" })),
+  };
 }

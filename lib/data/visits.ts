@@ -1,8 +1,9 @@
 // Data access for visits (appointments): lists for reception, detail and timeline for everyone allowed.
 import "server-only";
 import { Op } from "sequelize";
-import { Appointment, AppointmentStage, Clinic, Equipment, Material, Patient, User } from "@/db/models";
+import { Appointment, AppointmentStage, Clinic, Equipment, Material, Patient, Proposal, User } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
+import { searchSlots } from "@/lib/booking/search";
 import { findVisitFor } from "@/lib/booking/transitions";
 import { stageLabel } from "@/lib/domain/timeline";
 import { isoInZone } from "@/lib/domain/time-zone";
@@ -70,10 +71,30 @@ export async function listVisits({ user, statuses, from, to }: { user: SessionUs
     minutes: Math.round((a.endsAt.getTime() - a.startsAt.getTime()) / 60_000),
     statusReason: a.statusReason,
     zone: clinic!.timeZone,
+    proposalId: a.proposalId,
+    materialId: a.materialId,
   }));
 }
 
 export async function listPatientVisits({ patientId }: { patientId: string }) {
   const rows = await Appointment.findAll({ where: { patientId }, include: [{ model: Material, as: "material", attributes: ["name"] }], order: [["startsAt", "DESC"]] });
   return rows;
+}
+
+/** What a visit page shows: the visit (404 unless the user may see it), its clinic, material and patient. */
+export async function getVisitPage({ user, id }: { user: SessionUser; id: string }) {
+  const visit = await findVisitFor({ user }, id);
+  const [clinic, material, patient] = await Promise.all([
+    Clinic.findByPk(visit.clinicId),
+    Material.findByPk(visit.materialId),
+    Patient.findByPk(visit.patientId, { include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
+  ]);
+  return { visit, clinic: clinic!, material, patient };
+}
+
+/** Free start times to move a visit to (its own reservations do not count as busy). 404 unless the user may see it. */
+export async function findSlotsToMove({ user, id, from, days }: { user: SessionUser; id: string; from?: string; days?: number }) {
+  const visit = await findVisitFor({ user }, id);
+  const proposal = (await Proposal.findByPk(visit.proposalId))!;
+  return searchSlots({ proposal, materialId: visit.materialId, mode: visit.mode, from, days, excludeAppointmentId: visit.id });
 }

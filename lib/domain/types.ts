@@ -27,3 +27,9 @@ export const STAGE_KEYS = [
   "heat_treatment", "finishing", "try_in", "cementation", "aftercare",
 ] as const;
 export type StageKey = (typeof STAGE_KEYS)[number];
+
+export const ROLES = ["patient", "reception", "dentist", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const CONSENT_STATUSES = ["pending", "signed", "reviewed", "withdrawn"] as const;
+export type ConsentStatus = (typeof CONSENT_STATUSES)[number];

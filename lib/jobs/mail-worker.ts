@@ -3,6 +3,7 @@
 // the idempotency keys stop double sends.
 import { sequelize } from "@/db/sequelize";
 import { drainMailOnce, getBoss, stopBoss } from "./mail-queue";
+import "@/lib/mail/hooks";
 
 const IDLE_MS = Number(process.env.WORKER_POLL_MS ?? 1000);
 let stopping = false;

@@ -2,19 +2,18 @@
 import { ExclusionConstraintError } from "sequelize";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Appointment, AppointmentStage, AuditEvent, Reservation } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { bookVisit } from "@/lib/booking/book";
 import { searchSlots } from "@/lib/booking/search";
 import { cancelVisit, confirmVisit, declineVisit, moveVisit } from "@/lib/booking/transitions";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { sessionOf as asUser } from "../support/session";
 
 const now = new Date("2027-03-01T12:00:00Z");
 // Wednesday 2027-03-10, 08:00 in Toronto (EST, UTC−5).
 const wed0800 = new Date("2027-03-10T13:00:00Z");
 
 let t: TestClinic;
-const asUser = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser => ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 async function patientWithProposal(allow?: Record<string, ("rapid" | "standard" | "refined")[]>) {
   const { user, patient } = await createTestPatient(t.clinic.id);

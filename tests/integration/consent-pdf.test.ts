@@ -8,11 +8,11 @@ import { PDFDocument, PDFName, PDFRawStream } from "pdf-lib";
 import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Appointment, Consent, ConsentPdf } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { openConsentForPatient, reviewConsent, signConsent } from "@/lib/data/consents";
 import { QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
 import { SECTION_KEYS } from "@/lib/domain/consent-text";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { sessionOf } from "../support/session";
 
 const NAME = "Zoë Łukasiewicz-Núñez";
 const UA = "Mozilla/5.0 (iPhone; CPU iPhone OS 18_0 like Mac OS X) ConsentPdfTest";
@@ -23,8 +23,6 @@ let v2: Buffer;
 let consent: Consent;
 let signatureSize: { width: number; height: number };
 
-const sessionOf = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 beforeAll(async () => {
   t = await createTestClinic({ timeZone: "America/Toronto" });

@@ -6,27 +6,15 @@ import { NextRequest } from "next/server";
 import { QueryTypes } from "sequelize";
 import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { Appointment, AuditEvent, Consent, ConsentPdf, ConsentTemplate, sequelize } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { openConsentForPatient, publishTemplateVersion } from "@/lib/data/consents";
 import { sha256Hex } from "@/lib/domain/consent-hash";
 import { QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
 import { consentText, DEFAULT_SECTIONS, SECTION_KEYS } from "@/lib/domain/consent-text";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { signedInUser, signInAs, signOut, type Person } from "../support/session";
 
-const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", async () => {
-  const { forbidden, unauthorised } = await import("@/lib/server/errors");
-  return {
-    STAFF_ROLES: ["reception", "dentist", "admin"],
-    currentUser: async () => auth.user,
-    requireUser: async (roles?: readonly string[]) => {
-      if (!auth.user) throw unauthorised();
-      if (roles && !roles.includes(auth.user.role)) throw forbidden();
-      return auth.user;
-    },
-  };
-});
+vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
 const consentsRoute = await import("@/app/api/consents/route");
 const { GET: pdfRoute } = await import("@/app/api/consents/[id]/pdf/route");
@@ -34,8 +22,7 @@ const { POST: reviewRoute } = await import("@/app/api/consents/[id]/review/route
 const { POST: withdrawRoute } = await import("@/app/api/consents/[id]/withdraw/route");
 const { POST: verifyRoute } = await import("@/app/api/consents/verify/route");
 
-type Person = { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null };
-const as = (u: Person) => (auth.user = { id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const as = signInAs;
 const CLIENT = { "x-forwarded-for": "203.0.113.7", "user-agent": "ConsentTest/1.0 (integration)" };
 const DAY = 24 * 3600 * 1000;
 
@@ -48,7 +35,7 @@ beforeAll(async () => {
 });
 
 afterEach(() => {
-  auth.user = null;
+  signOut();
 });
 
 async function visitFor(clinic: TestClinic, name: string, opts: { startsAt?: Date; status?: Appointment["status"] } = {}) {
@@ -86,7 +73,7 @@ async function blankPng(draw = ""): Promise<string> {
 
 async function open(person: Person, visitId: string) {
   as(person);
-  const view = await openConsentForPatient({ user: auth.user!, appointmentId: visitId, ip: "203.0.113.7", userAgent: "ConsentTest/1.0 (integration)" });
+  const view = await openConsentForPatient({ user: signedInUser()!, appointmentId: visitId, ip: "203.0.113.7", userAgent: "ConsentTest/1.0 (integration)" });
   if (!view?.form) throw new Error("No consent form to sign.");
   return view;
 }
@@ -226,7 +213,7 @@ describe("signing", () => {
     const old = await signBody(user, visit.id);
     as(clinic.staff.admin);
     const published = await publishTemplateVersion({
-      user: auth.user!, ip: "198.51.100.2", userAgent: "ConsentTest/1.0",
+      user: signedInUser()!, ip: "198.51.100.2", userAgent: "ConsentTest/1.0",
       values: { title: "Consent to a same-day crown", sections: DEFAULT_SECTIONS.map((s) => (s.key === "costs" ? { ...s, body: `${s.body}\n\nPayment is due on the day.` } : s)) },
     });
     expect(published).toEqual({ ok: true, version: 2 });
@@ -285,7 +272,7 @@ describe("access, review and verification", () => {
     expect((await reviewRoute(post(`/api/consents/${signed.consentId}/review`), params(signed.consentId))).status).toBe(404);
     as(signed.patient);
     expect((await getPdf("not-a-uuid")).status).toBe(404);
-    auth.user = null;
+    signOut();
     expect((await getPdf(signed.consentId)).status).toBe(401);
   });
 

@@ -15,6 +15,7 @@ import { loadVisitProgress, markStage, stageTimeStats } from "@/lib/data/progres
 import { GROUP_SEPARATOR } from "@/lib/domain/gs1";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, createUser, type TestClinic } from "../support/fixtures";
+import { sessionOf as asUser } from "../support/session";
 
 const now = new Date("2027-03-01T12:00:00Z");
 const DAY = "2027-03-10"; // a Wednesday; Toronto is on EST (UTC−5) then
@@ -24,8 +25,6 @@ const MIN = 60_000;
 let t: TestClinic;
 let reception: SessionUser;
 let dentist: SessionUser;
-const asUser = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 async function rejection(p: Promise<unknown>): Promise<AppError> {
   const err = await p.then(() => null, (e) => e);

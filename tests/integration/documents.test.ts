@@ -4,31 +4,18 @@ import exifr from "exifr";
 import { NextRequest } from "next/server";
 import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { AuditEvent, PatientDocument } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { MAX_DOCUMENT_BYTES } from "@/lib/domain/documents";
 import { getObjectBytes, listObjectKeys, objectExists } from "@/lib/storage/s3";
 import { createTestClinic, createTestPatient, type TestClinic } from "../support/fixtures";
+import { signInAs, signOut } from "../support/session";
 import { jpegWithGps, pdfDocument, pngImage } from "../support/sample-files";
 
-const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", async () => {
-  const { forbidden, unauthorised } = await import("@/lib/server/errors");
-  return {
-    STAFF_ROLES: ["reception", "dentist", "admin"],
-    currentUser: async () => auth.user,
-    requireUser: async (roles?: readonly string[]) => {
-      if (!auth.user) throw unauthorised();
-      if (roles && !roles.includes(auth.user.role)) throw forbidden();
-      return auth.user;
-    },
-  };
-});
+vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
 const { GET: listRoute, POST: uploadRoute } = await import("@/app/api/documents/route");
 const { GET: openRoute } = await import("@/app/api/documents/[id]/route");
 
-type Person = { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null };
-const as = (u: Person) => (auth.user = { id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const as = signInAs;
 
 let t: TestClinic;
 let other: TestClinic;
@@ -43,7 +30,7 @@ beforeAll(async () => {
 });
 
 afterEach(() => {
-  auth.user = null;
+  signOut();
   vi.restoreAllMocks();
 });
 
@@ -183,7 +170,7 @@ describe("bad input and security: refused with a clear message, nothing stored",
   });
 
   it("an upload with no session (401)", async () => {
-    auth.user = null;
+    signOut();
     await expectRefused(form({ kind: "tooth_photo", title: "Photo" }, { bytes: await jpegWithGps(), name: "p.jpg", type: "image/jpeg" }), 401, /sign in/);
   });
 
@@ -227,7 +214,7 @@ describe("access, viewing and download", () => {
     aliceDoc = (await upload(form({ kind: "medicines_list", title: "My medicines" }, { bytes: pdfDocument("medicines"), name: "m.pdf", type: "application/pdf" }))).body.id;
     as(bruno.user);
     brunoDoc = (await upload(form({ kind: "referral_letter", title: "Letter" }, { bytes: pdfDocument("letter"), name: "l.pdf", type: "application/pdf" }))).body.id;
-    auth.user = null;
+    signOut();
   });
 
   it("lets the patient open their own document, and records the view and the download", async () => {
@@ -263,7 +250,7 @@ describe("access, viewing and download", () => {
     expect(await AuditEvent.count({ where: { action: "document.viewed", subjectId: brunoDoc, actorUserId: t.staff.dentist.id } })).toBe(1);
     as(other.staff.admin);
     expect((await open(brunoDoc)).status).toBe(404);
-    auth.user = null;
+    signOut();
     expect((await open(brunoDoc)).status).toBe(401);
   });
 

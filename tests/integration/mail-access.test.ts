@@ -2,17 +2,15 @@
 // (someone else's is a 404), staff their own clinic's; the signed link works without a session.
 import { describe, expect, it, beforeAll } from "vitest";
 import { AuditEvent, MailOutbox, sequelize } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { getDeliveryLog, setRemindersByToken, setVisitReminders, visitForReminderToken } from "@/lib/data/mail";
 import { reminderToken } from "@/lib/mail/reminder-token";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, type TestClinic } from "../support/fixtures";
 import { createVisit } from "../support/mail";
+import { sessionOf as asUser } from "../support/session";
 
 let t: TestClinic;
 let other: TestClinic;
-const asUser = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 async function status(p: Promise<unknown>): Promise<number> {
   const err = await p.then(() => null, (e) => e);

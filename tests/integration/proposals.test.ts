@@ -1,14 +1,13 @@
 // Crown proposals: the dentist creates them, the patient sees only their own.
 import { beforeAll, describe, expect, it } from "vitest";
 import { Proposal } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { proposalSchema } from "@/lib/booking/schemas";
 import { createProposal, getProposal, listProposals } from "@/lib/data/proposals";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, type TestClinic } from "../support/fixtures";
+import { sessionOf as session } from "../support/session";
 
 let t: TestClinic;
-const session = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser => ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 beforeAll(async () => {
   t = await createTestClinic();

@@ -11,10 +11,10 @@ import {
 } from "@/lib/data/settings";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, type TestClinic } from "../support/fixtures";
+import { sessionOf as asUser } from "../support/session";
 
 let t: TestClinic;
 let admin: { user: SessionUser };
-const asUser = (u: User): SessionUser => ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 async function failure(p: Promise<unknown>) {
   return p.then(() => null, (e) => e as unknown);

@@ -5,6 +5,7 @@ import { Clinic, Equipment, Material, OpeningHour, Patient, Proposal, ProposalMa
 import { seedCatalogue } from "@/db/seed/demo-clinic";
 import type { Role } from "@/db/models/user";
 import type { Mode } from "@/lib/domain/types";
+import "@/lib/mail/hooks";
 
 export type TestClinic = Awaited<ReturnType<typeof createTestClinic>>;
 

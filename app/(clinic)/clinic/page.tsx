@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { StatusBadge } from "@/components/visits/status-badge";
-import { Clinic } from "@/db/models";
 import { requirePageUser, STAFF_ROLES } from "@/lib/auth/session";
+import { clinicOf } from "@/lib/data/clinics";
 import { listVisits } from "@/lib/data/visits";
 import { addDays, localDate, zonedTime } from "@/lib/domain/time-zone";
 import { clock, MODE_WORDS } from "@/lib/format";
@@ -11,7 +11,7 @@ export const metadata: Metadata = { title: "Clinic" };
 
 export default async function ClinicHomePage() {
   const user = await requirePageUser(STAFF_ROLES);
-  const clinic = (await Clinic.findByPk(user.clinicId!))!;
+  const clinic = await clinicOf(user);
   const today = localDate(new Date(), clinic.timeZone);
   const [todays, requests] = await Promise.all([
     listVisits({ user, from: zonedTime(today, "00:00", clinic.timeZone), to: zonedTime(addDays(today, 1), "00:00", clinic.timeZone), statuses: ["requested", "confirmed", "checked_in", "in_progress", "completed"] }),

@@ -2,9 +2,9 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { CautionsNote } from "@/components/cautions-note";
 import { StatusBadge } from "@/components/visits/status-badge";
-import { Clinic } from "@/db/models";
 import { requirePageUser } from "@/lib/auth/session";
 import { patientOf } from "@/lib/data/access";
+import { clinicOf } from "@/lib/data/clinics";
 import { listProposals } from "@/lib/data/proposals";
 import { listPatientVisits } from "@/lib/data/visits";
 import { describeTooth } from "@/lib/domain/tooth";
@@ -15,7 +15,7 @@ export const metadata: Metadata = { title: "My crown" };
 export default async function PatientHomePage() {
   const user = await requirePageUser(["patient"]);
   const patient = await patientOf(user);
-  const [proposals, visits, clinic] = await Promise.all([listProposals({ user }), listPatientVisits({ patientId: patient.id }), Clinic.findByPk(patient.clinicId)]);
+  const [proposals, visits, clinic] = await Promise.all([listProposals({ user }), listPatientVisits({ patientId: patient.id }), clinicOf(user)]);
   const open = proposals.filter((p) => p.status === "open" && !p.activeVisit);
   const zone = clinic!.timeZone;
   return (

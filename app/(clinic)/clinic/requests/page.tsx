@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { RequestActions } from "@/components/visits/request-actions";
-import { Appointment } from "@/db/models";
 import { requirePageUser } from "@/lib/auth/session";
 import { listVisits } from "@/lib/data/visits";
 import { duration, MODE_WORDS, when } from "@/lib/format";
@@ -11,7 +10,6 @@ export const metadata: Metadata = { title: "Visit requests" };
 export default async function RequestsPage() {
   const user = await requirePageUser(["reception", "admin"]);
   const visits = await listVisits({ user, statuses: ["requested"] });
-  const extra = new Map((await Appointment.findAll({ where: { id: visits.map((v) => v.id) }, attributes: ["id", "proposalId", "materialId"] })).map((a) => [a.id, a]));
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-bold">Visit requests</h1>
@@ -39,7 +37,7 @@ export default async function RequestsPage() {
                   <td className="p-3 whitespace-nowrap">{when(v.start, v.zone)}</td>
                   <td className="p-3">{duration(v.minutes)}</td>
                   <td className="p-3">
-                    <RequestActions visitId={v.id} proposalId={extra.get(v.id)!.proposalId} materialId={extra.get(v.id)!.materialId} mode={v.mode} timezone={v.zone} patientName={v.patientName} />
+                    <RequestActions visitId={v.id} proposalId={v.proposalId} materialId={v.materialId} mode={v.mode} timezone={v.zone} patientName={v.patientName} />
                   </td>
                 </tr>
               ))}

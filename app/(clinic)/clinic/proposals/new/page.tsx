@@ -1,26 +1,22 @@
 import type { Metadata } from "next";
-import { Patient, User } from "@/db/models";
 import { requirePageUser } from "@/lib/auth/session";
 import { listMaterials } from "@/lib/data/materials";
+import { proposalFormChoices } from "@/lib/data/proposals";
 import { ProposalForm } from "./proposal-form";
 
 export const metadata: Metadata = { title: "New crown proposal" };
 
 export default async function NewProposalPage() {
   const user = await requirePageUser(["dentist", "admin"]);
-  const [patients, materials, dentists] = await Promise.all([
-    Patient.findAll({ where: { clinicId: user.clinicId! }, include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
-    listMaterials({ clinicId: user.clinicId! }),
-    User.findAll({ where: { clinicId: user.clinicId!, role: "dentist", active: true }, attributes: ["id", "name"] }),
-  ]);
+  const [{ patients, dentists }, materials] = await Promise.all([proposalFormChoices({ user }), listMaterials({ clinicId: user.clinicId! })]);
   return (
     <div className="mx-auto max-w-read space-y-4">
       <h1 className="text-2xl font-bold">New crown proposal</h1>
       <p className="text-ink-soft">Propose a single crown for one tooth and choose which materials and finishes the patient may pick from.</p>
       <ProposalForm
         role={user.role}
-        patients={patients.map((p) => ({ id: p.id, name: p.user?.name ?? p.user?.email ?? "Patient" })).sort((a, b) => a.name.localeCompare(b.name))}
-        dentists={dentists.map((d) => ({ id: d.id, name: d.name ?? "Dentist" }))}
+        patients={patients}
+        dentists={dentists}
         materials={materials.map((m) => ({ id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode) }))}
       />
     </div>

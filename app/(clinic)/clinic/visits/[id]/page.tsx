@@ -5,10 +5,8 @@ import { DeliveryLog } from "@/components/clinic/delivery-log";
 import { ConsentLink } from "@/components/consent/consent-link";
 import { StatusBadge } from "@/components/visits/status-badge";
 import { VisitTimeline } from "@/components/visits/visit-timeline";
-import { Clinic, Material, Patient, User } from "@/db/models";
 import { requirePageUser, STAFF_ROLES } from "@/lib/auth/session";
-import { findVisitFor } from "@/lib/booking/transitions";
-import { getVisitTimeline } from "@/lib/data/visits";
+import { getVisitPage, getVisitTimeline } from "@/lib/data/visits";
 import { describeTooth } from "@/lib/domain/tooth";
 import { duration, MODE_WORDS, money, when } from "@/lib/format";
 import { AppError } from "@/lib/server/errors";
@@ -20,16 +18,11 @@ export const metadata: Metadata = { title: "Visit" };
 export default async function ClinicVisitPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser(STAFF_ROLES);
   const { id } = await params;
-  const visit = await findVisitFor({ user }, id).catch((err) => {
+  const { visit, clinic, material, patient } = await getVisitPage({ user, id }).catch((err) => {
     if (err instanceof AppError && err.status === 404) notFound();
     throw err;
   });
-  const [clinic, material, patient, timeline] = await Promise.all([
-    Clinic.findByPk(visit.clinicId),
-    Material.findByPk(visit.materialId),
-    Patient.findByPk(visit.patientId, { include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
-    getVisitTimeline({ user, id }),
-  ]);
+  const timeline = await getVisitTimeline({ user, id });
   const zone = clinic!.timeZone;
   const tooth = describeTooth(visit.tooth);
   return (

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { duration, MODE_WORDS, money } from "@/lib/format";
 import type { Mode } from "@/lib/domain/types";
-import { SlotPicker, type SlotOption } from "./slot-picker";
+import { SlotPicker, type SlotOption } from "@/components/visits/slot-picker";
 
 export type MaterialChoice = {
   id: string;

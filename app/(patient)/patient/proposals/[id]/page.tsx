@@ -2,9 +2,9 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound, redirect } from "next/navigation";
 import { CautionsNote } from "@/components/cautions-note";
-import { Clinic } from "@/db/models";
 import { requirePageUser } from "@/lib/auth/session";
 import { loadTimeline } from "@/lib/booking/context";
+import { clinicOf } from "@/lib/data/clinics";
 import { getProposal } from "@/lib/data/proposals";
 import { listMaterials } from "@/lib/data/materials";
 import { AppError } from "@/lib/server/errors";
@@ -21,7 +21,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ id: s
   });
   const { row, view } = found;
   if (view.activeVisit) redirect(`/patient/visits/${view.activeVisit.id}`);
-  const clinic = (await Clinic.findByPk(row.clinicId))!;
+  const clinic = await clinicOf(user);
   const catalogue = await listMaterials({ clinicId: row.clinicId });
 
   const choices: MaterialChoice[] = [];

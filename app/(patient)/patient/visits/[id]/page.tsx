@@ -8,10 +8,9 @@ import { PreVisitNotes } from "@/components/visits/pre-visit-notes";
 import { StatusBadge } from "@/components/visits/status-badge";
 import { VisitActions } from "@/components/visits/visit-actions";
 import { VisitTimeline } from "@/components/visits/visit-timeline";
-import { Clinic, Material } from "@/db/models";
 import { requirePageUser } from "@/lib/auth/session";
-import { getVisitTimeline } from "@/lib/data/visits";
-import { findVisitFor, patientMayChange } from "@/lib/booking/transitions";
+import { getVisitPage, getVisitTimeline } from "@/lib/data/visits";
+import { patientMayChange } from "@/lib/booking/transitions";
 import { withDefaults } from "@/lib/domain/clinic-settings";
 import { describeTooth } from "@/lib/domain/tooth";
 import { duration, MODE_WORDS, money, when } from "@/lib/format";
@@ -22,11 +21,11 @@ export const metadata: Metadata = { title: "My visit" };
 export default async function PatientVisitPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser(["patient"]);
   const { id } = await params;
-  const visit = await findVisitFor({ user }, id).catch((err) => {
+  const { visit, clinic, material } = await getVisitPage({ user, id }).catch((err) => {
     if (err instanceof AppError && err.status === 404) notFound();
     throw err;
   });
-  const [clinic, material, timeline] = await Promise.all([Clinic.findByPk(visit.clinicId), Material.findByPk(visit.materialId), getVisitTimeline({ user, id })]);
+  const timeline = await getVisitTimeline({ user, id });
   const zone = clinic!.timeZone;
   const tooth = describeTooth(visit.tooth);
   const minutes = Math.round((visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000);

@@ -1,9 +1,7 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { Proposal } from "@/db/models";
 import { requireUser } from "@/lib/auth/session";
-import { searchSlots } from "@/lib/booking/search";
-import { findVisitFor } from "@/lib/booking/transitions";
+import { findSlotsToMove } from "@/lib/data/visits";
 import { isoInZone } from "@/lib/domain/time-zone";
 import { route } from "@/lib/server/api";
 
@@ -19,8 +17,6 @@ export const GET = route<{ params: Promise<{ id: string }> }>(async (req, { para
   const user = await requireUser(["patient", "reception", "admin"]);
   const { id } = await params;
   const q = query.parse(Object.fromEntries(req.nextUrl.searchParams));
-  const visit = await findVisitFor({ user }, id);
-  const proposal = (await Proposal.findByPk(visit.proposalId))!;
-  const { timezone, slots } = await searchSlots({ proposal, materialId: visit.materialId, mode: visit.mode, from: q.from, days: q.days, excludeAppointmentId: visit.id });
+  const { timezone, slots } = await findSlotsToMove({ user, id, from: q.from, days: q.days });
   return NextResponse.json({ timezone, slots: slots.map((s) => ({ start: isoInZone(s.start, timezone), end: isoInZone(s.end, timezone) })) });
 });
