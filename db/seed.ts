@@ -1,5 +1,6 @@
 // `npm run db:seed [-- --reset]`: loads the invented demo clinic. Without --reset an existing
-// demo clinic is kept as it is; with --reset every table is emptied first.
+// demo clinic is kept as it is; with --reset every migration runs down and up first (as the owner:
+// kept records refuse TRUNCATE and DELETE). Refused with NODE_ENV=production.
 import "./as-owner";
 import { sequelize } from "./sequelize";
 import { seedDemo } from "./seed/demo";
