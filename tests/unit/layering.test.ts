@@ -40,6 +40,18 @@ describe("layering", () => {
     expect(importing("db/models", /^@\/lib\/mail|\/lib\/mail/)).toEqual([]);
   });
 
+  it("every module that creates or changes visits loads the mail hooks, so the outbox is written", () => {
+    // A visit change goes through Appointment.create or an instance update in one of these.
+    const writers = sources("lib").concat(sources("db/seed")).filter((file) => {
+      const text = readFileSync(path.join(root, file), "utf8");
+      return /Appointment\.create\(|(?:visit|fresh|appointment)\.update\(\{/.test(text);
+    });
+    expect(writers.length).toBeGreaterThanOrEqual(4);
+    const loaders = new Set([...importing("lib", /^@\/lib\/mail\/hooks$/), ...importing("db/seed", /^@\/lib\/mail\/hooks$/)]);
+    // db/seed/demo.ts loads them for the seeders it calls.
+    expect(writers.filter((f) => !loaders.has(f) && !f.startsWith("db/seed/demo-"))).toEqual([]);
+  });
+
   it("tests fake a session only through tests/support/session.ts", () => {
     const copies = sources("tests").filter((file) => {
       if (file === "tests/support/session.ts" || file === "tests/unit/layering.test.ts") return false;
