@@ -170,6 +170,23 @@ describe.skipIf(!separateRoles)("the app's role", () => {
     expect(await refusal(app, "SET session_replication_role = replica")).toMatch(/permission denied/);
   });
 
+  it("can make a new job queue, whose table the owner owns, but cannot delete one", async () => {
+    const name = `test-${randomUUID().slice(0, 8)}`;
+    await app.query("SELECT pgboss.create_queue($1, $2::json)", [name, JSON.stringify({ policy: "standard" })]);
+    const ownerName = (await owner.query("SELECT current_user AS name")).rows[0].name;
+    const { rows } = await owner.query(
+      `SELECT r.rolname FROM pgboss.queue q
+         JOIN pg_class c ON c.relname = q.partition_name
+         JOIN pg_namespace n ON n.oid = c.relnamespace AND n.nspname = 'pgboss'
+         JOIN pg_roles r ON r.oid = c.relowner
+        WHERE q.name = $1`,
+      [name],
+    );
+    expect(rows).toEqual([{ rolname: ownerName }]);
+    expect(await refusal(app, "SELECT pgboss.delete_queue($1)", [name])).toMatch(/permission denied/);
+    await owner.query("SELECT pgboss.delete_queue($1)", [name]);
+  });
+
   it("gets rights on tables made after the grant without a grant of its own (default privileges)", async () => {
     const table = `later_${randomUUID().slice(0, 8)}`;
     await owner.query(`CREATE TABLE ${table} (id bigserial PRIMARY KEY, note text)`);
