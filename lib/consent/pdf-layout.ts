@@ -1,8 +1,9 @@
 // Page layout for the consent PDF, kept apart from its wording: a writer that flows text down A4
 // pages, wraps lines and draws rows, flags, rules and the signature image. Text layout is linear
-// in the length of the text: each word is measured once per font and size (and a word longer than
-// a line is split with cached character widths), so no input can make signing slow.
-import { rgb, type PDFDocument, type PDFFont, type PDFImage, type PDFPage, type RGB } from "pdf-lib";
+// in the length of the text: widths are cached per font and size (a word is measured once, and a
+// word longer than a line is split in one pass over its characters), so no input can make
+// signing slow.
+import { PDFHexString, rgb, type PDFDocument, type PDFFont, type PDFImage, type PDFPage, type RGB } from "pdf-lib";
 
 export const PAGE = { width: 595.28, height: 841.89, margin: 56, bottom: 64 };
 export const INK = rgb(0.12, 0.16, 0.22);
@@ -24,17 +25,28 @@ export function clean(text: string): string {
   return text.normalize("NFC").replace(/\t/g, " ").replace(/[\u0000-\u001f\u007f]/g, "");
 }
 
-/** Text widths for one font at one size, each distinct word and character measured once. */
+// Scripts that pdf-lib draws one glyph per code point, with no joining or reordering: Latin,
+// Greek, Cyrillic, general punctuation and symbols (combining marks excluded). Text in other
+// scripts goes through fontkit's full shaping, measured and encoded whole.
+const ONE_GLYPH_PER_CHAR = /^[\u0020-\u02ff\u0370-\u0482\u048a-\u052f\u1e00-\u1fff\u2000-\u2bff]*$/;
+
+/** Widths for one font at one size: a plain word is the sum of its cached character advances. */
 export class Measure {
   private readonly words = new Map<string, number>();
   private readonly chars = new Map<string, number>();
   readonly space: number;
 
   constructor(readonly font: PDFFont, readonly size: number) {
-    this.space = font.widthOfTextAtSize(" ", size);
+    this.space = this.char(" ");
   }
 
+  /** pdf-lib's width is the sum of the glyphs' advance widths (no kerning), so summing per character is exact. */
   word(word: string): number {
+    if (ONE_GLYPH_PER_CHAR.test(word)) {
+      let w = 0;
+      for (const char of word) w += this.char(char);
+      return w;
+    }
     let w = this.words.get(word);
     if (w === undefined) {
       w = this.font.widthOfTextAtSize(word, this.size);
@@ -73,12 +85,36 @@ export class Measure {
 }
 
 /**
+ * Makes drawing plain text cost a lookup per character: fontkit shapes every drawn line from
+ * scratch, which dominates the time to lay out a long consent. A character's glyph is encoded
+ * once through pdf-lib (so the font subset still records it) and reused; other text is shaped.
+ */
+export function cacheGlyphEncoding(font: PDFFont): void {
+  const shaped = font.encodeText.bind(font);
+  const glyphs = new Map<string, string>();
+  font.encodeText = (text: string) => {
+    if (!ONE_GLYPH_PER_CHAR.test(text)) return shaped(text);
+    let hex = "";
+    for (const char of text) {
+      let glyph = glyphs.get(char);
+      if (glyph === undefined) {
+        glyph = shaped(char).toString().slice(1, -1); // "<0041>" → "0041"
+        glyphs.set(char, glyph);
+      }
+      hex += glyph;
+    }
+    return PDFHexString.of(hex);
+  };
+}
+
+/**
  * Greedy line breaking at spaces, linear in the text's length. Line widths are summed from word
  * widths (kerning across a space is ignored, a fraction of a point), so no line is measured twice.
  */
 export function wrapText(text: string, measure: Measure, width: number): string[] {
   const lines: string[] = [];
-  for (const paragraph of clean(text).split("\n")) {
+  // Split before cleaning: a line break is a control character, and a patient's lines stay lines.
+  for (const paragraph of text.split(/\r\n?|\n/).map(clean)) {
     let line = "";
     let used = 0;
     for (const word of paragraph.split(/ +/)) {
@@ -114,6 +150,8 @@ export class Writer {
   private readonly measures = new Map<string, Measure>();
 
   constructor(readonly doc: PDFDocument, readonly fonts: Fonts) {
+    cacheGlyphEncoding(fonts.regular);
+    cacheGlyphEncoding(fonts.bold);
     this.newPage();
   }
 
