@@ -6,8 +6,10 @@ import { readFile } from "node:fs/promises";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
 import { PDFDocument } from "pdf-lib";
+import sharp from "sharp";
 import type { ConsentFlag } from "@/lib/domain/consent-questionnaire";
 import type { AssembledConsent } from "@/lib/domain/consent-text";
+import { MAX_IMAGE_PIXELS } from "@/lib/domain/image-limits";
 import { clipText, TEXT_LIMITS } from "@/lib/domain/text-limits";
 import { clean, HARBOUR, MUTED, PAGE, Writer } from "./pdf-layout";
 
@@ -42,6 +44,24 @@ function loadFonts(): Promise<[Buffer, Buffer]> {
   ]);
   return fontBytes;
 }
+
+// The signature box on the page is at most 260 × 110 pt; three pixels per point prints sharply.
+const SIGNATURE_PIXELS = { width: 780, height: 330 };
+
+/**
+ * The drawn signature scaled to what the page shows. The stored PNG stays as drawn; the PDF gets
+ * this copy because pdf-lib decodes and re-compresses an image in JavaScript, on the event loop,
+ * while sharp works on its own threads.
+ */
+async function signatureForPage(png: Uint8Array): Promise<Buffer> {
+  return sharp(png, { limitInputPixels: MAX_IMAGE_PIXELS })
+    .resize({ ...SIGNATURE_PIXELS, fit: "inside", withoutEnlargement: true })
+    .png()
+    .toBuffer();
+}
+
+/** Lets other requests run between parts of a long layout, so one signing never holds the server. */
+const breathe = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 const L = TEXT_LIMITS;
 const cap = (text: string, max: number = L.line) => clipText(text, max);
@@ -88,7 +108,7 @@ export async function buildConsentPdf(raw: ConsentPdfInput): Promise<PDFDocument
   doc.registerFontkit(fontkit);
   const [regularBytes, boldBytes] = await loadFonts();
   const fonts = { regular: await doc.embedFont(regularBytes, { subset: true }), bold: await doc.embedFont(boldBytes, { subset: true }) };
-  const signature = await doc.embedPng(input.signaturePng);
+  const signature = await doc.embedPng(await signatureForPage(input.signaturePng));
   const d = input.document;
 
   doc.setTitle(`${d.title} — ${input.patientName}`, { showInWindowTitleBar: true });
@@ -112,6 +132,7 @@ export async function buildConsentPdf(raw: ConsentPdfInput): Promise<PDFDocument
   d.visit.forEach((r) => w.row(r.label, r.value));
 
   for (const section of d.sections) {
+    await breathe();
     w.heading(section.heading);
     for (const block of section.blocks) {
       if (block.kind === "p") w.text(block.text);
@@ -132,6 +153,7 @@ export async function buildConsentPdf(raw: ConsentPdfInput): Promise<PDFDocument
     w.flag({ level: f.level, tag: f.level === "alert" ? "ALERT" : "CHECK", body: f.detail ? `${f.label}. ${f.detail}` : f.label });
   }
   w.heading("Answers", 12);
+  await breathe();
   for (const a of input.answers) {
     w.text(a.question, { after: 0 });
     w.text(`Answer: ${a.answer}`, { bold: true, indent: 12, after: 4 });
@@ -148,6 +170,7 @@ export async function buildConsentPdf(raw: ConsentPdfInput): Promise<PDFDocument
   w.newPage();
   w.heading("Audit trail", 15);
   w.text("Each event as recorded by the clinic's portal. Times are shown in the clinic's time zone and in UTC.", { size: 9, color: MUTED });
+  await breathe();
   for (const line of input.audit) {
     w.rule();
     w.row("Event", line.event);
