@@ -90,15 +90,9 @@ const sealInfo = { reason: "Consent reviewed by the dentist", clinicName: word(L
 
 /** What issuePdf does for one version: lay out, save once for the content hash, seal. */
 async function sealedPdf(input: ConsentPdfInput): Promise<{ bytes: Buffer; pages: number }> {
-  const c0 = process.cpuUsage();
   const doc = await buildConsentPdf(input);
-  const c1 = process.cpuUsage();
   await doc.save({ useObjectStreams: false });
-  const c2 = process.cpuUsage();
-  const bytes = await sealPdf(doc, sealInfo);
-  const c3 = process.cpuUsage();
-  if (process.env.PROF) console.log("build", (c1.user - c0.user) / 1000, "save", (c2.user - c1.user) / 1000, "seal", (c3.user - c2.user) / 1000);
-  return { bytes, pages: doc.getPageCount() };
+  return { bytes: await sealPdf(doc, sealInfo), pages: doc.getPageCount() };
 }
 
 const cpuMs = (start: NodeJS.CpuUsage) => {
