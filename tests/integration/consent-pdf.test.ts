@@ -92,7 +92,7 @@ async function pdfText(bytes: Buffer): Promise<{ pages: string[]; all: string }>
 /**
  * Verifies the PDF's last signature independently of the code that made it: the digest of the
  * bytes the /ByteRange covers must equal the signed messageDigest attribute, and the RSA signature
- * over the DER of the signed attributes must verify with the certificate inside the PKCS#7.
+ * over the DER of the signed attributes must verify with the certificate inside the CMS.
  */
 function verifySeal(pdf: Buffer): { digestOk: boolean; signatureOk: boolean; signer: string; certDer: string; signatureHex: string } {
   const text = pdf.toString("latin1");
