@@ -17,7 +17,9 @@ let cached: { path: string; key: Promise<SealKey> } | undefined;
 export function readSealKey(p12Der: Buffer, passphrase: string): SealKey {
   const p12 = forge.pkcs12.pkcs12FromAsn1(forge.asn1.fromDer(p12Der.toString("binary")), passphrase);
   const certBag = p12.getBags({ bagType: forge.pki.oids.certBag })[forge.pki.oids.certBag]?.[0];
-  const keyBag = p12.getBags({ bagType: forge.pki.oids.pkcs8ShroudedKeyBag })[forge.pki.oids.pkcs8ShroudedKeyBag]?.[0];
+  const keyBag =
+    p12.getBags({ bagType: forge.pki.oids.pkcs8ShroudedKeyBag })[forge.pki.oids.pkcs8ShroudedKeyBag]?.[0] ??
+    p12.getBags({ bagType: forge.pki.oids.keyBag })[forge.pki.oids.keyBag]?.[0];
   if (!certBag?.cert || !keyBag?.key) throw new Error("The clinic seal file holds no certificate or no private key.");
   // certificateToAsn1 reuses the certificate's parsed TBS part, so these are the issued bytes.
   const certDer = Buffer.from(forge.asn1.toDer(forge.pki.certificateToAsn1(certBag.cert)).getBytes(), "binary");
