@@ -55,6 +55,14 @@ export function ensureChromium() {
   aptInstall(["chromium"]);
 }
 
+/** The seal tests check sealed PDFs with standard validators: poppler's pdfsig and OpenSSL's cms. */
+export function ensureSealValidators() {
+  const missing = [];
+  if (!existsSync("/usr/bin/pdfsig")) missing.push("poppler-utils");
+  if (!existsSync("/usr/bin/openssl")) missing.push("openssl");
+  if (missing.length) aptInstall(missing);
+}
+
 function postgresBin() {
   const base = "/usr/lib/postgresql";
   const find = () =>

@@ -4,7 +4,7 @@
 import { existsSync, readFileSync, rmSync, mkdirSync } from "node:fs";
 import path from "node:path";
 import {
-  appEnv, bin, dataDir, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, mustRun,
+  appEnv, bin, dataDir, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, ensureSealValidators, mustRun,
   run, say, startMailCatcher, startService, startStorage, stopPostgres, stopService,
 } from "./lib.mjs";
 
@@ -18,6 +18,7 @@ const offset = Number(process.env.CUSPAL_TEST_PORT_OFFSET ?? 0);
 const ports = { db: "cuspal_test", appPort: 3100 + offset, smtpPort: 1125 + offset, mailWebPort: 1180 + offset, s3Port: 4579 + offset };
 ensureDependencies();
 if (wantE2e) ensureChromium();
+if (wantUnit) ensureSealValidators();
 const startedPg = await ensurePostgres();
 await ensureDatabases(["cuspal_test", "cuspal_test_migrations"], { fresh: ["cuspal_test", "cuspal_test_migrations"] });
 

@@ -1,12 +1,17 @@
 // Lays out a consent as a PDF (pdf-lib with the shipped DejaVu TTF fonts, so every name renders):
 // the consent text, the visit, the questionnaire and flags, the signature, and an audit page.
-// Returns the pdf-lib document unsaved, so the seal can add its placeholder before saving.
+// This file holds what the PDF says; pdf-layout.ts holds how it is drawn. Returns the pdf-lib
+// document unsaved, so the seal can add its placeholder before saving.
 import { readFile } from "node:fs/promises";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
-import { PDFDocument, rgb, type PDFFont, type PDFImage, type PDFPage, type RGB } from "pdf-lib";
+import { PDFDocument } from "pdf-lib";
+import sharp from "sharp";
 import type { ConsentFlag } from "@/lib/domain/consent-questionnaire";
 import type { AssembledConsent } from "@/lib/domain/consent-text";
+import { MAX_IMAGE_PIXELS } from "@/lib/domain/image-limits";
+import { clipText, TEXT_LIMITS } from "@/lib/domain/text-limits";
+import { clean, HARBOUR, MUTED, PAGE, Writer } from "./pdf-layout";
 
 export type AuditLine = { event: string; who: string; at: string; ip: string; userAgent: string };
 
@@ -30,160 +35,6 @@ export type ConsentPdfInput = {
   createdAt: Date;
 };
 
-const PAGE = { width: 595.28, height: 841.89, margin: 56, bottom: 64 };
-const INK = rgb(0.12, 0.16, 0.22);
-const MUTED = rgb(0.33, 0.38, 0.43);
-const HARBOUR = rgb(0.05, 0.43, 0.43);
-const CLAY = rgb(0.54, 0.23, 0.13);
-const CLAY_BG = rgb(0.98, 0.94, 0.91);
-const OCHRE = rgb(0.43, 0.33, 0.05);
-const OCHRE_BG = rgb(0.98, 0.96, 0.87);
-const LINE = rgb(0.85, 0.83, 0.78);
-
-type Fonts = { regular: PDFFont; bold: PDFFont };
-
-// Only characters the font can draw: control characters would break the content stream.
-function clean(text: string): string {
-  return text.normalize("NFC").replace(/\t/g, " ").replace(/[\u0000-\u001f\u007f]/g, "");
-}
-
-class Writer {
-  page!: PDFPage;
-  y = 0;
-  readonly width = PAGE.width - PAGE.margin * 2;
-
-  constructor(readonly doc: PDFDocument, readonly fonts: Fonts) {
-    this.newPage();
-  }
-
-  newPage() {
-    this.page = this.doc.addPage([PAGE.width, PAGE.height]);
-    this.y = PAGE.height - PAGE.margin;
-  }
-
-  ensure(height: number) {
-    if (this.y - height < PAGE.bottom) this.newPage();
-  }
-
-  gap(points: number) {
-    this.y -= points;
-  }
-
-  wrap(text: string, font: PDFFont, size: number, width: number): string[] {
-    const lines: string[] = [];
-    for (const paragraph of clean(text).split(/\n/)) {
-      let line = "";
-      for (const word of paragraph.split(/ +/)) {
-        const candidate = line ? `${line} ${word}` : word;
-        if (font.widthOfTextAtSize(candidate, size) <= width) {
-          line = candidate;
-          continue;
-        }
-        if (line) lines.push(line);
-        // A word longer than the line (a hash, a user agent) is broken by characters.
-        let rest = word;
-        while (font.widthOfTextAtSize(rest, size) > width) {
-          let cut = rest.length - 1;
-          while (cut > 1 && font.widthOfTextAtSize(rest.slice(0, cut), size) > width) cut--;
-          lines.push(rest.slice(0, cut));
-          rest = rest.slice(cut);
-        }
-        line = rest;
-      }
-      lines.push(line);
-    }
-    return lines;
-  }
-
-  text(text: string, opts: { size?: number; bold?: boolean; color?: RGB; indent?: number; width?: number; after?: number } = {}) {
-    const size = opts.size ?? 10.5;
-    const font = opts.bold ? this.fonts.bold : this.fonts.regular;
-    const indent = opts.indent ?? 0;
-    const leading = size * 1.4;
-    for (const line of this.wrap(text, font, size, (opts.width ?? this.width) - indent)) {
-      this.ensure(leading);
-      this.y -= leading;
-      if (line) this.page.drawText(line, { x: PAGE.margin + indent, y: this.y + size * 0.3, size, font, color: opts.color ?? INK });
-    }
-    this.gap(opts.after ?? 4);
-  }
-
-  heading(text: string, size = 13) {
-    this.ensure(size * 4);
-    this.gap(8);
-    this.text(text, { size, bold: true, color: HARBOUR, after: 2 });
-  }
-
-  bullet(text: string) {
-    const size = 10.5;
-    this.ensure(size * 1.4);
-    this.page.drawText("•", { x: PAGE.margin + 4, y: this.y - size * 1.4 + size * 0.3, size, font: this.fonts.regular, color: INK });
-    this.text(text, { indent: 16, after: 2 });
-  }
-
-  rule() {
-    this.ensure(12);
-    this.gap(6);
-    this.page.drawLine({ start: { x: PAGE.margin, y: this.y }, end: { x: PAGE.width - PAGE.margin, y: this.y }, thickness: 0.75, color: LINE });
-    this.gap(6);
-  }
-
-  row(label: string, value: string) {
-    const labelWidth = 150;
-    const size = 10.5;
-    const leading = size * 1.4;
-    const labelLines = this.wrap(label, this.fonts.bold, size, labelWidth - 8);
-    const valueLines = this.wrap(value, this.fonts.regular, size, this.width - labelWidth);
-    const n = Math.max(labelLines.length, valueLines.length);
-    this.ensure(leading * Math.min(n, 4));
-    for (let i = 0; i < n; i++) {
-      this.ensure(leading);
-      this.y -= leading;
-      const baseline = this.y + size * 0.3;
-      if (labelLines[i]) this.page.drawText(labelLines[i], { x: PAGE.margin, y: baseline, size, font: this.fonts.bold, color: MUTED });
-      if (valueLines[i]) this.page.drawText(valueLines[i], { x: PAGE.margin + labelWidth, y: baseline, size, font: this.fonts.regular, color: INK });
-    }
-    this.gap(3);
-  }
-
-  /** A label with a long unbroken value (a fingerprint) on its own full-width line. */
-  fingerprint(label: string, value: string) {
-    this.text(label, { size: 9.5, bold: true, color: MUTED, after: 0 });
-    this.text(value, { size: 9, after: 4 });
-  }
-
-  /** A flag in a tinted box with its level spelled out, so it does not rely on colour. */
-  flag(flag: ConsentFlag) {
-    const size = 10.5;
-    const leading = size * 1.4;
-    const tag = flag.level === "alert" ? "ALERT" : "CHECK";
-    const body = flag.detail ? `${flag.label}. ${flag.detail}` : flag.label;
-    const lines = this.wrap(body, this.fonts.regular, size, this.width - 70);
-    const height = lines.length * leading + 10;
-    this.ensure(height + 4);
-    const top = this.y;
-    this.page.drawRectangle({
-      x: PAGE.margin, y: top - height, width: this.width, height,
-      color: flag.level === "alert" ? CLAY_BG : OCHRE_BG, borderColor: flag.level === "alert" ? CLAY : OCHRE, borderWidth: 0.75,
-    });
-    this.page.drawText(tag, { x: PAGE.margin + 8, y: top - 5 - leading + size * 0.3, size: 9, font: this.fonts.bold, color: flag.level === "alert" ? CLAY : OCHRE });
-    lines.forEach((line, i) => {
-      this.page.drawText(line, { x: PAGE.margin + 62, y: top - 5 - (i + 1) * leading + size * 0.3, size, font: this.fonts.regular, color: INK });
-    });
-    this.y = top - height - 4;
-  }
-
-  image(image: PDFImage, maxWidth: number, maxHeight: number) {
-    const scale = Math.min(maxWidth / image.width, maxHeight / image.height, 1);
-    const w = image.width * scale;
-    const h = image.height * scale;
-    this.ensure(h + 8);
-    this.page.drawRectangle({ x: PAGE.margin, y: this.y - h - 8, width: maxWidth + 8, height: h + 8, borderColor: LINE, borderWidth: 0.75 });
-    this.page.drawImage(image, { x: PAGE.margin + 4, y: this.y - h - 4, width: w, height: h });
-    this.y -= h + 14;
-  }
-}
-
 let fontBytes: Promise<[Buffer, Buffer]> | undefined;
 function loadFonts(): Promise<[Buffer, Buffer]> {
   // Literal paths, so the build traces only these two files.
@@ -194,12 +45,70 @@ function loadFonts(): Promise<[Buffer, Buffer]> {
   return fontBytes;
 }
 
-export async function buildConsentPdf(input: ConsentPdfInput): Promise<PDFDocument> {
+// The signature box on the page is at most 260 × 110 pt; three pixels per point prints sharply.
+const SIGNATURE_PIXELS = { width: 780, height: 330 };
+
+/**
+ * The drawn signature scaled to what the page shows. The stored PNG stays as drawn; the PDF gets
+ * this copy because pdf-lib decodes and re-compresses an image in JavaScript, on the event loop,
+ * while sharp works on its own threads.
+ */
+async function signatureForPage(png: Uint8Array): Promise<Buffer> {
+  return sharp(png, { limitInputPixels: MAX_IMAGE_PIXELS })
+    .resize({ ...SIGNATURE_PIXELS, fit: "inside", withoutEnlargement: true })
+    .png()
+    .toBuffer();
+}
+
+/** Lets other requests run between parts of a long layout, so one signing never holds the server. */
+const breathe = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+const L = TEXT_LIMITS;
+const cap = (text: string, max: number = L.line) => clipText(text, max);
+
+/**
+ * The one place every text that reaches the PDF is capped, whatever path it came by (a header,
+ * an old row, a schema that changed): the layout's cost stays bounded by these lengths.
+ */
+export function limitPdfInput(input: ConsentPdfInput): ConsentPdfInput {
+  const d = input.document;
+  const section = (s: AssembledConsent["sections"][number]) => ({
+    ...s,
+    heading: cap(s.heading, L.sectionHeading),
+    blocks: s.blocks.map((b) => (b.kind === "p" ? { ...b, text: cap(b.text, L.sectionBody) } : { ...b, items: b.items.map((i) => cap(i, L.sectionBody)) })),
+  });
+  return {
+    ...input,
+    consentId: cap(input.consentId, 64),
+    clinic: { name: cap(input.clinic.name, L.clinicName), address: cap(input.clinic.address, L.address) },
+    patientName: cap(input.patientName, L.email),
+    document: {
+      ...d,
+      title: cap(d.title, L.templateTitle),
+      visit: d.visit.map((r) => ({ label: cap(r.label, L.sectionHeading), value: cap(r.value) })),
+      sections: d.sections.map(section),
+      electronicRecords: { ...d.electronicRecords, heading: cap(d.electronicRecords.heading, L.sectionHeading), text: d.electronicRecords.text.map((t) => cap(t, L.sectionBody)) },
+    },
+    answers: input.answers.map((a) => ({ question: cap(a.question), answer: cap(a.answer, L.answer) })),
+    flags: input.flags.map((f) => ({ ...f, label: cap(f.label), ...(f.detail !== undefined ? { detail: cap(f.detail, L.answer + 200) } : {}) })),
+    typedName: cap(input.typedName, L.personName),
+    signedAt: cap(input.signedAt, 200),
+    textSha256: cap(input.textSha256, 64),
+    audit: input.audit.map((a) => ({
+      event: cap(a.event, 200), who: cap(a.who, L.email + 40), at: cap(a.at, 200), ip: cap(a.ip, L.ip), userAgent: cap(a.userAgent, L.userAgent),
+    })),
+    review: input.review ? { by: cap(input.review.by, L.email), at: cap(input.review.at, 200) } : null,
+    previous: input.previous ? { version: input.previous.version, sha256: cap(input.previous.sha256, 64) } : null,
+  };
+}
+
+export async function buildConsentPdf(raw: ConsentPdfInput): Promise<PDFDocument> {
+  const input = limitPdfInput(raw);
   const doc = await PDFDocument.create();
   doc.registerFontkit(fontkit);
   const [regularBytes, boldBytes] = await loadFonts();
   const fonts = { regular: await doc.embedFont(regularBytes, { subset: true }), bold: await doc.embedFont(boldBytes, { subset: true }) };
-  const signature = await doc.embedPng(input.signaturePng);
+  const signature = await doc.embedPng(await signatureForPage(input.signaturePng));
   const d = input.document;
 
   doc.setTitle(`${d.title} — ${input.patientName}`, { showInWindowTitleBar: true });
@@ -223,6 +132,7 @@ export async function buildConsentPdf(input: ConsentPdfInput): Promise<PDFDocume
   d.visit.forEach((r) => w.row(r.label, r.value));
 
   for (const section of d.sections) {
+    await breathe();
     w.heading(section.heading);
     for (const block of section.blocks) {
       if (block.kind === "p") w.text(block.text);
@@ -239,8 +149,11 @@ export async function buildConsentPdf(input: ConsentPdfInput): Promise<PDFDocume
   w.heading("Health questionnaire", 15);
   w.heading("Points for the dentist's attention", 12);
   if (input.flags.length === 0) w.text("None: the patient answered no to every question and added nothing.");
-  input.flags.forEach((f) => w.flag(f));
+  for (const f of input.flags) {
+    w.flag({ level: f.level, tag: f.level === "alert" ? "ALERT" : "CHECK", body: f.detail ? `${f.label}. ${f.detail}` : f.label });
+  }
   w.heading("Answers", 12);
+  await breathe();
   for (const a of input.answers) {
     w.text(a.question, { after: 0 });
     w.text(`Answer: ${a.answer}`, { bold: true, indent: 12, after: 4 });
@@ -257,6 +170,7 @@ export async function buildConsentPdf(input: ConsentPdfInput): Promise<PDFDocume
   w.newPage();
   w.heading("Audit trail", 15);
   w.text("Each event as recorded by the clinic's portal. Times are shown in the clinic's time zone and in UTC.", { size: 9, color: MUTED });
+  await breathe();
   for (const line of input.audit) {
     w.rule();
     w.row("Event", line.event);

@@ -7,7 +7,7 @@ import forge from "node-forge";
 
 export const SEAL_COMMON_NAME = "Alder Bay Dental Studio — document seal (demo)";
 
-export function ensureSealCertificate({ file, password }: { file: string; password: string }): "created" | "kept" {
+export function ensureSealCertificate({ file, password, commonName = SEAL_COMMON_NAME }: { file: string; password: string; commonName?: string }): "created" | "kept" {
   if (existsSync(file)) {
     try {
       const p12 = forge.pkcs12.pkcs12FromAsn1(forge.asn1.fromDer(readFileSync(file).toString("binary")), password);
@@ -35,7 +35,7 @@ export function ensureSealCertificate({ file, password }: { file: string; passwo
   cert.validity.notAfter = new Date(Date.now() + 10 * 365 * 24 * 3600 * 1000);
   const subject = [
     // forge encodes a UTF8String value itself (x509.js), so the name goes in as plain text.
-    { name: "commonName", value: SEAL_COMMON_NAME, valueTagClass: forge.asn1.Type.UTF8 },
+    { name: "commonName", value: commonName, valueTagClass: forge.asn1.Type.UTF8 },
     { name: "organizationName", value: "Alder Bay Dental Studio (invented demo clinic)" },
     { name: "countryName", value: "CA" },
   ] as forge.pki.CertificateField[];

@@ -3,6 +3,7 @@
 import sharp from "sharp";
 import { AppError } from "@/lib/server/errors";
 import { inkStats, MAX_SIGNATURE_BYTES, MAX_SIGNATURE_SIDE, signatureProblem } from "@/lib/domain/consent-signature";
+import { MAX_IMAGE_PIXELS } from "@/lib/domain/image-limits";
 
 const PREFIX = "data:image/png;base64,";
 const PNG_MAGIC = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
@@ -18,9 +19,19 @@ export async function decodeSignature(dataUrl: string): Promise<Buffer> {
   if (png.length < PNG_MAGIC.length || !png.subarray(0, 8).equals(PNG_MAGIC)) {
     throw new AppError(422, "The signature image could not be read. Clear the box and sign again.", { field: "signature" });
   }
+  // The PNG header (IHDR, ISO/IEC 15948 §11.2.2) gives the canvas size before anything is decoded.
+  const width = png.length >= 24 ? png.readUInt32BE(16) : 0;
+  const height = png.length >= 24 ? png.readUInt32BE(20) : 0;
+  if (width > MAX_SIGNATURE_SIDE || height > MAX_SIGNATURE_SIDE) {
+    throw new AppError(
+      422,
+      `That signature image is ${width} × ${height} pixels; a signature box is at most ${MAX_SIGNATURE_SIDE} × ${MAX_SIGNATURE_SIDE}. Clear the box and sign again.`,
+      { field: "signature" },
+    );
+  }
   let raw: { data: Buffer; info: { width: number; height: number } };
   try {
-    const image = sharp(png, { limitInputPixels: MAX_SIGNATURE_SIDE * MAX_SIGNATURE_SIDE });
+    const image = sharp(png, { limitInputPixels: Math.min(MAX_IMAGE_PIXELS, MAX_SIGNATURE_SIDE * MAX_SIGNATURE_SIDE) });
     const meta = await image.metadata();
     if (meta.format !== "png" || !meta.width || !meta.height || meta.width > MAX_SIGNATURE_SIDE || meta.height > MAX_SIGNATURE_SIDE) {
       throw new Error("unexpected size or format");

@@ -6,6 +6,7 @@ import { z } from "zod";
 import { Appointment, BlockLot, Clinic, Material, Patient, User, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { Gs1Error, normaliseLot, readBlockCode } from "@/lib/domain/gs1";
+import { TEXT_LIMITS } from "@/lib/domain/text-limits";
 import { localDate } from "@/lib/domain/time-zone";
 import { describeTooth } from "@/lib/domain/tooth";
 import { recordAudit } from "@/lib/server/audit";
@@ -17,7 +18,7 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 export const lotBodySchema = z.union(
   [
     z.object({ elementString: z.string().min(1, { message: "Scan or type the code from the block's package." }).max(200) }).strict(),
-    z.object({ lot: z.string().min(1, { message: "Type the lot number." }).max(40) }).strict(),
+    z.object({ lot: z.string().min(1, { message: "Type the lot number." }).max(TEXT_LIMITS.lot) }).strict(),
   ],
   { error: "Send either the package code (elementString) or the lot typed by hand (lot)." },
 );

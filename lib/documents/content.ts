@@ -8,6 +8,7 @@ import { AppError } from "@/lib/server/errors";
 import {
   ALLOWED_CONTENT, isAllowedContentType, MAX_DOCUMENT_BYTES, tooLargeMessage, unsupportedContentMessage, type AllowedContentType,
 } from "@/lib/domain/documents";
+import { MAX_IMAGE_PIXELS, tooManyPixels, tooManyPixelsMessage } from "@/lib/domain/image-limits";
 
 export type PreparedContent = { bytes: Uint8Array; contentType: AllowedContentType };
 
@@ -15,7 +16,7 @@ export async function detectContentType(bytes: Uint8Array): Promise<string | und
   return (await fileTypeFromBuffer(bytes))?.mime;
 }
 
-/** Throws 413 or 415 as an AppError; returns the bytes to store and their real type. */
+/** Throws 413, 415 or 422 as an AppError; returns the bytes to store and their real type. */
 export async function prepareContent(bytes: Uint8Array): Promise<PreparedContent> {
   if (bytes.byteLength > MAX_DOCUMENT_BYTES) throw new AppError(413, tooLargeMessage(bytes.byteLength), { field: "file", code: "too_large" });
   const detected = await detectContentType(bytes);
@@ -31,8 +32,13 @@ export async function prepareContent(bytes: Uint8Array): Promise<PreparedContent
  * orientation, which is lost with the rest; the colour profile is kept because it is not personal.
  */
 export async function stripImageMetadata(bytes: Uint8Array, type: AllowedContentType): Promise<Uint8Array> {
+  // The header alone gives the size: refuse a huge image before a single pixel is decoded.
+  const { width, height } = await sharp(bytes).metadata().catch(() => ({ width: undefined, height: undefined }));
+  if (width && height && tooManyPixels(width, height)) {
+    throw new AppError(422, tooManyPixelsMessage(width, height), { field: "file", code: "too_many_pixels" });
+  }
   try {
-    const pipeline = sharp(bytes, { failOn: "error" }).rotate().keepIccProfile();
+    const pipeline = sharp(bytes, { failOn: "error", limitInputPixels: MAX_IMAGE_PIXELS }).rotate().keepIccProfile();
     const out =
       type === "image/jpeg" ? pipeline.jpeg({ quality: 90, mozjpeg: true })
       : type === "image/png" ? pipeline.png()

@@ -2,15 +2,16 @@
 import { z } from "zod";
 import { ANSWERS, QUESTION_KEYS, type QuestionKey } from "./consent-questionnaire";
 import { SECTION_KEYS } from "./consent-text";
+import { TEXT_LIMITS } from "./text-limits";
 
 const answer = z.enum(ANSWERS, { message: "Choose an answer." });
 const freeText = (max: number) => z.string().trim().max(max, { message: `Keep this under ${max} characters.` });
 
 export const questionnaireSchema = z.object({
   ...(Object.fromEntries(QUESTION_KEYS.map((k) => [k, answer])) as Record<QuestionKey, typeof answer>),
-  otherAllergies: freeText(500),
-  medicines: freeText(1000),
-  notes: freeText(1000),
+  otherAllergies: freeText(TEXT_LIMITS.otherAllergies),
+  medicines: freeText(TEXT_LIMITS.answer),
+  notes: freeText(TEXT_LIMITS.answer),
 });
 
 /** The patient's part of the form: answers, acknowledgements, the records agreement and the typed name. */
@@ -20,7 +21,7 @@ export const consentFormSchema = z.object({
     .array(z.enum(SECTION_KEYS))
     .refine((keys) => SECTION_KEYS.every((k) => keys.includes(k)), { message: "Please read and tick every section before signing." }),
   electronicRecords: z.literal(true, { message: "Please agree to sign and receive records electronically, or ask the clinic for paper." }),
-  typedName: z.string().trim().min(2, { message: "Type your full name." }).max(120, { message: "That name is too long." }),
+  typedName: z.string().trim().min(2, { message: "Type your full name." }).max(TEXT_LIMITS.personName, { message: "That name is too long." }),
 });
 export type ConsentFormInput = z.input<typeof consentFormSchema>;
 export type ConsentFormValues = z.output<typeof consentFormSchema>;
@@ -35,18 +36,18 @@ export const signConsentSchema = consentFormSchema.extend({
 export type SignConsentInput = z.output<typeof signConsentSchema>;
 
 export const withdrawConsentSchema = z.object({
-  reason: freeText(500).optional(),
+  reason: freeText(TEXT_LIMITS.withdrawReason).optional(),
 });
 
 /** The clinic manager's template editor: a title and one heading and body per section. */
 export const templateFormSchema = z.object({
-  title: z.string().trim().min(3, { message: "Give the consent text a title." }).max(200, { message: "Keep the title under 200 characters." }),
+  title: z.string().trim().min(3, { message: "Give the consent text a title." }).max(TEXT_LIMITS.templateTitle, { message: `Keep the title under ${TEXT_LIMITS.templateTitle} characters.` }),
   sections: z
     .array(
       z.object({
         key: z.enum(SECTION_KEYS),
-        heading: z.string().trim().min(2, { message: "Every section needs a heading." }).max(200, { message: "Keep headings under 200 characters." }),
-        body: z.string().trim().min(10, { message: "Every section needs some text." }).max(8000, { message: "Keep each section under 8,000 characters." }),
+        heading: z.string().trim().min(2, { message: "Every section needs a heading." }).max(TEXT_LIMITS.sectionHeading, { message: `Keep headings under ${TEXT_LIMITS.sectionHeading} characters.` }),
+        body: z.string().trim().min(10, { message: "Every section needs some text." }).max(TEXT_LIMITS.sectionBody, { message: "Keep each section under 8,000 characters." }),
       }),
     )
     .length(SECTION_KEYS.length, { message: "Every section must be there." }),

@@ -13,6 +13,7 @@ import { consentText, DEFAULT_SECTIONS, SECTION_KEYS } from "@/lib/domain/consen
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
 import { signedInUser, signInAs, signOut, type Person } from "../support/session";
+import { hugePng } from "../support/sample-files";
 
 vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
@@ -186,6 +187,11 @@ describe("signing", () => {
       { name: "a dot for a signature", body: { ...good, signature: await blankPng('<circle cx="300" cy="100" r="3" fill="#000"/>') }, status: 422, field: "signature", error: /too small or too simple/ },
       { name: "a too-large payload", body: { ...good, signature: `data:image/png;base64,${"A".repeat(500_000)}` }, status: 413, field: "signature", error: /too large/ },
       { name: "not a PNG", body: { ...good, signature: `data:image/png;base64,${Buffer.from("GIF89a not a png").toString("base64")}` }, status: 422, field: "signature", error: /could not be read/ },
+      {
+        name: "a signature of few bytes but 16,000 × 16,000 pixels", body: { ...good, signature: `data:image/png;base64,${hugePng().toString("base64")}` },
+        status: 422, field: "signature", error: /^That signature image is 16000 × 16000 pixels; a signature box is at most 3000 × 3000\./,
+      },
+      { name: "a note over its cap", body: { ...good, answers: { ...good.answers, notes: "x".repeat(1001) } }, status: 400, field: "answers.notes", error: /under 1000 characters/ },
       { name: "another patient's visit", body: { ...good, appointmentId: stranger.visit.id }, status: 404, error: /was not found/ },
       { name: "someone else's name", body: { ...good, typedName: "Rafael Someone" }, status: 422, field: "typedName", error: /Rafael Okonkwo-Lind/ },
       { name: "a text that is not the one shown", body: { ...good, textSha256: "0".repeat(64) }, status: 409, field: "textSha256", error: /reload the page/ },

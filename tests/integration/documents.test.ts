@@ -8,7 +8,9 @@ import { MAX_DOCUMENT_BYTES } from "@/lib/domain/documents";
 import { getObjectBytes, listObjectKeys, objectExists } from "@/lib/storage/s3";
 import { createTestClinic, createTestPatient, type TestClinic } from "../support/fixtures";
 import { signInAs, signOut } from "../support/session";
-import { jpegWithGps, pdfDocument, pngImage } from "../support/sample-files";
+import sharp from "sharp";
+import { MAX_IMAGE_PIXELS } from "@/lib/domain/image-limits";
+import { hugePng, jpegWithGps, pdfDocument, pngImage } from "../support/sample-files";
 
 vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
@@ -134,6 +136,26 @@ describe("bad input and security: refused with a clear message, nothing stored",
     as(alice.user);
     const big = Buffer.concat([await jpegWithGps(), Buffer.alloc(MAX_DOCUMENT_BYTES)]);
     await expectRefused(form({ kind: "tooth_photo", title: "Big" }, { bytes: big, name: "big.jpg", type: "image/jpeg" }), 413, /^This file is 15\.1 MB; the limit is 15 MB\./, "file");
+  });
+
+  it("an image of few bytes but too many pixels, before it is decoded (422)", async () => {
+    as(alice.user);
+    const png = hugePng(16_000, 16_000);
+    expect(png.byteLength).toBeLessThan(100_000);
+    // sharp (libvips) reads the crafted header as a 16,000 × 16,000 PNG: 256 megapixels. [C] the size
+    // a general-purpose decoder sees, read from the header only.
+    expect(await sharp(png).metadata()).toMatchObject({ format: "png", width: 16_000, height: 16_000 });
+    expect(16_000 * 16_000).toBeGreaterThan(MAX_IMAGE_PIXELS);
+    const decode = vi.spyOn(sharp.prototype, "toBuffer");
+    await expectRefused(
+      form({ kind: "tooth_photo", title: "Huge" }, { bytes: png, name: "huge.png", type: "image/png" }),
+      422, /^This image is 16,000 × 16,000 pixels \(256 megapixels\); the limit is 40 megapixels\./, "file",
+    );
+    expect(decode).not.toHaveBeenCalled();
+    // Just under the limit still goes through.
+    const fits = await upload(form({ kind: "tooth_photo", title: "Wide" }, { bytes: hugePng(8_000, 5_000), name: "wide.png", type: "image/png" }));
+    expect(fits.status).toBe(201);
+    expect(decode).toHaveBeenCalled(); // the spy does see a decode when one happens
   });
 
   it("an oversized body announced by its Content-Length is refused before it is read (413)", async () => {

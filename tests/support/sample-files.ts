@@ -1,6 +1,7 @@
 // Sample uploads made in the test itself (no binary fixtures): a JPEG whose EXIF block carries a
 // GPS position and an orientation, written byte by byte so the sample does not depend on the
-// library that later strips it; plus small PNG and PDF files.
+// library that later strips it; plus small PNG and PDF files, and a PNG of few bytes and huge size.
+import { crc32, deflateSync } from "node:zlib";
 import sharp from "sharp";
 
 /** Where the sample photo claims it was taken (an invented spot): 43°39'12.5" N, 79°23'1" W. */
@@ -75,4 +76,32 @@ export function pdfDocument(text = "Referral letter"): Buffer {
       `3 0 obj << /Type /Page /Parent 2 0 R /MediaBox [0 0 200 200] >> endobj\n% ${text}\ntrailer << /Root 1 0 R >>\n%%EOF\n`,
     "latin1",
   );
+}
+
+/**
+ * A valid PNG of `width` × `height` black pixels written chunk by chunk (ISO/IEC 15948: signature,
+ * IHDR, IDAT, IEND, each with its CRC-32): one bit per pixel and all-zero rows deflate to a few
+ * kilobytes however large the declared size, like an image crafted to exhaust a decoder.
+ */
+export function hugePng(width = 16_000, height = 16_000): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, "latin1"), data]);
+    const out = Buffer.alloc(12 + data.length);
+    out.writeUInt32BE(data.length, 0);
+    body.copy(out, 4);
+    out.writeUInt32BE(crc32(body), 8 + data.length);
+    return out;
+  };
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr[8] = 1; // bit depth
+  ihdr[9] = 0; // greyscale; compression, filter and interlace bytes stay 0
+  const rows = Buffer.alloc(height * (1 + Math.ceil(width / 8))); // each row: filter type 0, then zeros
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk("IHDR", ihdr),
+    chunk("IDAT", deflateSync(rows, { level: 9 })),
+    chunk("IEND", Buffer.alloc(0)),
+  ]);
 }
