@@ -5,7 +5,7 @@ import { bookVisit } from "@/lib/booking/book";
 import { bookingSchema } from "@/lib/booking/schemas";
 import { listVisits } from "@/lib/data/visits";
 import { APPOINTMENT_STATUSES } from "@/lib/domain/types";
-import { clientInfo, readJson, route } from "@/lib/server/api";
+import { clientInfo, parseQuery, readJson, route } from "@/lib/server/api";
 
 export const dynamic = "force-dynamic";
 
@@ -22,7 +22,7 @@ const listQuery = z.object({ status: z.enum(APPOINTMENT_STATUSES, { message: "Un
 /** The clinic's visits for staff, optionally by status. */
 export const GET = route(async (req) => {
   const user = await requireUser(STAFF_ROLES);
-  const { status } = listQuery.parse(Object.fromEntries(req.nextUrl.searchParams));
+  const { status } = parseQuery(req, listQuery);
   const visits = await listVisits({ user, statuses: status ? [status] : undefined });
   return NextResponse.json({ appointments: visits.map((v) => ({ ...v, tooth: v.tooth.fdi, start: v.start.toISOString(), end: v.end.toISOString() })) });
 });

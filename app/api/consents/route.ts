@@ -2,8 +2,7 @@ import { NextResponse, type NextRequest } from "next/server";
 import { requireUser, STAFF_ROLES } from "@/lib/auth/session";
 import { listConsents, signConsent } from "@/lib/data/consents";
 import { signConsentSchema } from "@/lib/domain/consent-schemas";
-import { clientInfo, route } from "@/lib/server/api";
-import { AppError, badRequest } from "@/lib/server/errors";
+import { clientInfo, readJson, route } from "@/lib/server/api";
 
 export const dynamic = "force-dynamic";
 
@@ -20,17 +19,11 @@ export const GET = route(async (req: NextRequest) => {
 /** The patient signs their visit's consent. */
 export const POST = route(async (req: NextRequest) => {
   const user = await requireUser(["patient"]);
-  const tooLarge = () => new AppError(413, "That signature is too large to send. Clear the box and sign again.", { field: "signature" });
-  if (Number(req.headers.get("content-length") ?? 0) > MAX_BODY) throw tooLarge();
-  const text = await req.text();
-  if (text.length > MAX_BODY) throw tooLarge();
-  let body: unknown;
-  try {
-    body = JSON.parse(text);
-  } catch {
-    throw badRequest("The request body must be valid JSON.");
-  }
-  const input = signConsentSchema.parse(body);
+  const input = await readJson(req, signConsentSchema, {
+    limit: MAX_BODY,
+    tooLargeMessage: "That signature is too large to send. Clear the box and sign again.",
+    tooLargeField: "signature",
+  });
   const signed = await signConsent({ user, input, ...clientInfo(req) });
   return NextResponse.json({ id: signed.consentId, status: signed.status, signedAt: signed.signedAt.toISOString() }, { status: 201 });
 });
