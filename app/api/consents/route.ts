@@ -2,7 +2,8 @@ import { NextResponse, type NextRequest } from "next/server";
 import { requireUser, STAFF_ROLES } from "@/lib/auth/session";
 import { listConsents, signConsent } from "@/lib/data/consents";
 import { signConsentSchema } from "@/lib/domain/consent-schemas";
-import { clientInfo, readJson, route } from "@/lib/server/api";
+import { clientInfo, parseQuery, readJson, route } from "@/lib/server/api";
+import { consentListQuery } from "@/lib/server/route-schemas";
 
 export const dynamic = "force-dynamic";
 
@@ -12,7 +13,8 @@ const MAX_BODY = 400_000;
 /** The clinic's consents, optionally by status (staff). */
 export const GET = route(async (req: NextRequest) => {
   const user = await requireUser(STAFF_ROLES);
-  const consents = await listConsents({ user, status: req.nextUrl.searchParams.get("status") });
+  const { status } = parseQuery(req, consentListQuery);
+  const consents = await listConsents({ user, status });
   return NextResponse.json({ consents });
 });
 

@@ -3,7 +3,8 @@ import { requireUser } from "@/lib/auth/session";
 import { createDocument, listDocuments } from "@/lib/data/documents";
 import { formText, readUploadForm, uploadedFile } from "@/lib/documents/read-upload";
 import { documentFieldsSchema } from "@/lib/documents/schema";
-import { clientInfo, parseId, route } from "@/lib/server/api";
+import { clientInfo, parseQuery, route } from "@/lib/server/api";
+import { documentListQuery } from "@/lib/server/route-schemas";
 
 export const dynamic = "force-dynamic";
 
@@ -24,8 +25,7 @@ export const POST = route(async (req: NextRequest) => {
 /** The caller's documents (patient), or one patient's documents (staff, `?patientId=`). */
 export const GET = route(async (req: NextRequest) => {
   const user = await requireUser();
-  const raw = req.nextUrl.searchParams.get("patientId");
-  const patientId = raw === null ? undefined : parseId(raw, "patientId", "The patient");
+  const { patientId } = parseQuery(req, documentListQuery);
   const { documents } = await listDocuments({ actor: user, patientId, client: clientInfo(req) });
   return NextResponse.json({ documents });
 });

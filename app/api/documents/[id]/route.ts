@@ -2,7 +2,8 @@ import type { NextRequest } from "next/server";
 import { requireUser } from "@/lib/auth/session";
 import { openDocument } from "@/lib/data/documents";
 import { ALLOWED_CONTENT } from "@/lib/domain/documents";
-import { clientInfo, idParams, route } from "@/lib/server/api";
+import { clientInfo, idParams, parseQuery, route } from "@/lib/server/api";
+import { documentOpenQuery } from "@/lib/server/route-schemas";
 
 export const dynamic = "force-dynamic";
 
@@ -10,7 +11,7 @@ export const dynamic = "force-dynamic";
 export const GET = route<{ params: Promise<{ id: string }> }>(async (req: NextRequest, { params }) => {
   const user = await requireUser();
   const { id } = await idParams(params, "id");
-  const download = req.nextUrl.searchParams.get("download") === "1";
+  const download = parseQuery(req, documentOpenQuery).download === "1";
   const doc = await openDocument({ actor: user, documentId: id, download, client: clientInfo(req) });
   // Uploaded files come from outside: only a raster image is shown in the browser, and under a
   // sandboxing policy; a PDF (which can carry scripts and forms) is always saved, never opened here.
