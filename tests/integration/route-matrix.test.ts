@@ -3,9 +3,9 @@
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { apiRouteFiles } from "../support/api-routes";
 import { ROUTE_MATRIX, rowKey, type Fill, type Ids, type MatrixRow } from "../support/route-matrix";
-import { ACTORS, actAs, apiRequest, createWorld, sessionMock, type World } from "../support/trust-world";
+import { ACTORS, actAs, apiRequest, createWorld, type World } from "../support/trust-world";
 
-vi.mock("@/lib/auth/session", sessionMock);
+vi.mock("@/lib/auth/session", async () => (await import("../support/fake-session")).sessionModule());
 
 let world: World;
 beforeAll(async () => {

@@ -37,18 +37,20 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { method: "GET", route: "/api/appointments", expect: "401 403 403 200 200 200 200" },
   {
     method: "POST", route: "/api/appointments",
-    // A start in the past is refused by the booking rules, so the walk books nothing; access comes first.
+    // A start in the past is refused after the access check, so the walk books nothing.
     body: (w) => ({ proposalId: w.proposal.id, materialId: w.home.materialByKey["zirconia"].id, mode: "standard", start: "2020-03-16T09:00:00-04:00" }),
-    expect: "401 409 404 409 403 409 404",
+    expect: "401 400 404 400 403 400 404",
   },
   { method: "GET", route: "/api/appointments/[id]/availability", params: { id: "requestedVisit" }, expect: "401 200 404 200 403 200 404" },
   { method: "POST", route: "/api/appointments/[id]/cancel", params: { id: "requestedVisit" }, body: { reason: "Travelling that week" }, expect: "401 200 404 200 403 200 404" },
   { method: "POST", route: "/api/appointments/[id]/confirm", params: { id: "requestedVisit" }, expect: "401 403 403 200 403 200 404" },
   { method: "POST", route: "/api/appointments/[id]/decline", params: { id: "requestedVisit" }, body: { reason: "The mill is serviced that day" }, expect: "401 403 403 200 403 200 404" },
   { method: "POST", route: "/api/appointments/[id]/lot", params: { id: "visit" }, body: { lot: "LOT2027A" }, expect: "401 403 403 200 200 403 404" },
-  { method: "POST", route: "/api/appointments/[id]/move", params: { id: "requestedVisit" }, body: { start: "2020-03-16T09:00:00-04:00" }, expect: "401 409 404 409 403 409 404" },
+  // A start in the past: refused (400) once access is granted, so nothing moves.
+  { method: "POST", route: "/api/appointments/[id]/move", params: { id: "requestedVisit" }, body: { start: "2020-03-16T09:00:00-04:00" }, expect: "401 400 404 400 403 400 404" },
   { method: "GET", route: "/api/appointments/[id]/stages", params: { id: "visit" }, expect: "401 403 403 200 200 200 404" },
-  { method: "POST", route: "/api/appointments/[id]/stages/[key]", params: { id: "visit", key: { literal: "check_in" } }, body: { action: "start" }, expect: "401 403 403 200 200 403 404" },
+  // The walk's visits are days ahead, so starting a stage now is refused by the visit-day rule (422) once access is granted.
+  { method: "POST", route: "/api/appointments/[id]/stages/[key]", params: { id: "visit", key: { literal: "check_in" } }, body: { action: "start" }, expect: "401 403 403 422 422 403 404" },
   { method: "GET", route: "/api/appointments/[id]/timeline", params: { id: "visit" }, expect: "401 200 404 200 200 200 404" },
 
   // ——— sign-in (next-auth checks its own CSRF token and answers in its own format) ———
@@ -99,7 +101,7 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   {
     method: "POST", route: "/api/proposals",
     body: (w) => ({ patientId: w.owner.patient.id, dentistId: w.home.staff.dentist.id, tooth: 46, fee: 1200, options: [{ materialId: w.home.materialByKey["zirconia"].id, modes: ["standard"] }] }),
-    expect: "401 403 403 403 201 201 404",
+    expect: "401 403 403 403 201 201 403",
   },
   {
     method: "GET", route: "/api/proposals/[id]/availability", params: { id: "proposal" },

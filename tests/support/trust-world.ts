@@ -12,31 +12,13 @@ import { QUESTION_KEYS } from "@/lib/domain/consent-questionnaire";
 import { SECTION_KEYS } from "@/lib/domain/consent-text";
 import { reminderToken } from "@/lib/mail/reminder-token";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "./fixtures";
+import { auth } from "./fake-session";
 import { pdfDocument } from "./sample-files";
 
 export const ACTORS = ["anonymous", "owner", "otherPatient", "reception", "dentist", "admin", "foreignStaff"] as const;
 export type Actor = (typeof ACTORS)[number];
 
-/** The session a faked `requireUser` returns; set by `actAs`. */
-export const auth: { user: SessionUser | null } = { user: null };
-
 export const sessionOf = (u: User): SessionUser => ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
-
-/** The module `vi.mock("@/lib/auth/session", sessionMock)` puts in place of next-auth's session. */
-export async function sessionMock() {
-  const { forbidden, unauthorised } = await import("@/lib/server/errors");
-  return {
-    STAFF_ROLES: ["reception", "dentist", "admin"],
-    currentUser: async () => auth.user,
-    requireUser: async (roles?: readonly string[]) => {
-      if (!auth.user) throw unauthorised();
-      if (roles && !roles.includes(auth.user.role)) throw forbidden();
-      return auth.user;
-    },
-    requirePageUser: async () => auth.user,
-    homeFor: (role: string) => (role === "patient" ? "/patient" : "/clinic"),
-  };
-}
 
 export type World = Awaited<ReturnType<typeof createWorld>>;
 
@@ -61,13 +43,14 @@ export async function createWorld() {
   };
   let visitDay = 3;
 
-  /** A fresh visit of the owner, some days ahead, in the given status. */
+  /** A fresh visit of the owner (on a fresh proposal: one active visit per proposal), some days ahead. */
   async function visit(status: Appointment["status"] = "requested") {
+    const forVisit = await createTestProposal(home, owner.patient.id, { tooth: 36 });
     const chair = home.equipment.find((e) => e.kind === "chair")!;
     const mill = home.equipment.find((e) => e.kind === "mill")!;
     const startsAt = new Date(Date.now() + visitDay++ * DAY);
     return Appointment.create({
-      clinicId: home.clinic.id, proposalId: proposal.id, patientId: owner.patient.id, dentistId: home.staff.dentist.id,
+      clinicId: home.clinic.id, proposalId: forVisit.id, patientId: owner.patient.id, dentistId: home.staff.dentist.id,
       materialId: home.materialByKey["zirconia"].id, mode: "standard", tooth: 36, status, startsAt,
       endsAt: new Date(startsAt.getTime() + 150 * 60_000), chairId: chair.id, millId: mill.id, furnaceId: null, feeCents: 145000, createdBy: null,
     });
