@@ -195,7 +195,8 @@ describe("bad input and security: refused with a clear message, nothing stored",
     await expectRefused(form({ kind: "x-ray", title: "Photo" }, photo), 400, /kind of document/, "kind");
     await expectRefused(form({ kind: "scan_export", title: "Scan" }, photo), 400, /added by the clinic/, "kind");
     await expectRefused(new FormData(), 400, /Choose a file/, "file");
-    await expectRefused({ raw: Buffer.from("{}"), contentType: "application/json" }, 400, /form upload/, "file");
+    // Not a form at all: the upload route reads multipart only (415, unsupported media type).
+    await expectRefused({ raw: Buffer.from("{}"), contentType: "application/json" }, 415, /multipart\/form-data/);
     as(t.staff.dentist);
     await expectRefused(form({ kind: "scan_export", title: "Scan" }, photo), 400, /Choose the patient/, "patientId");
   });
