@@ -4,7 +4,7 @@ import { calendarDateSchema, idSchema, instantSchema } from "@/lib/domain/input"
 import { isValidFdi } from "@/lib/domain/tooth";
 import { MODES } from "@/lib/domain/types";
 
-const uuid = (what: string) => z.string({ message: `${what} is required.` }).pipe(idSchema(what));
+const uuid = (what: string) => idSchema(what);
 const isoWithOffset = instantSchema("start");
 
 export const modeSchema = z.enum(MODES, { message: "mode must be rapid, standard or refined." });

@@ -24,7 +24,8 @@ export function isClockTime(value: string): boolean {
 export const UUID_MESSAGE = (what: string) => `${what} is not a valid id.`;
 
 /** A record id (UUID). */
-export const idSchema = (what = "The id") => z.uuid({ message: UUID_MESSAGE(what) });
+export const idSchema = (what = "The id") =>
+  z.uuid({ error: (issue) => (issue.input === undefined ? `${what} is required.` : UUID_MESSAGE(what)) });
 
 /** A clinic-local calendar day, YYYY-MM-DD. */
 export const calendarDateSchema = (what = "The date") =>

@@ -129,10 +129,10 @@ export async function readForm(req: Request, limit: number, options: { tooLargeM
   }
 }
 
-/** A path or query id: a UUID, or 400 naming the field (a 404 would say nothing useful). */
-export function parseId(value: unknown, field = "id", what = "The id"): string {
-  const parsed = idSchema(what).safeParse(value);
-  if (!parsed.success) throw badRequest(parsed.error.issues[0]?.message ?? `${what} is not valid.`, field);
+/** A path or query id: a UUID, or 400 naming the field (such a value cannot name any record). */
+export function parseId(value: unknown, field = "id"): string {
+  const parsed = idSchema().safeParse(value);
+  if (!parsed.success) throw badRequest(`${field} must be a record id (a UUID).`, field);
   return parsed.data;
 }
 

@@ -259,7 +259,7 @@ describe("access, viewing and download", () => {
     for (const id of ["not-an-id", "..%2F..%2Fetc"]) {
       const res = await open(id);
       expect(res.status, id).toBe(400);
-      expect(await res.json()).toEqual({ error: "The id is not a valid id.", field: "id" });
+      expect(await res.json()).toEqual({ error: "id must be a record id (a UUID).", field: "id" });
     }
     expect(await AuditEvent.count({ where: { subjectId: brunoDoc, actorUserId: alice.user.id } })).toBe(0);
   });
