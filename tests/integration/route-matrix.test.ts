@@ -2,7 +2,7 @@
 // the real database, answers the status its row in tests/support/route-matrix.ts says.
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { apiRouteFiles } from "../support/api-routes";
-import { ROUTE_MATRIX, rowKey, type Fill, type Ids, type MatrixRow } from "../support/route-matrix";
+import { ROUTE_MATRIX, rowBody, rowKey, rowQuery, type Fill, type Ids, type MatrixRow } from "../support/route-matrix";
 import { ACTORS, actAs, apiRequest, createWorld, type World } from "../support/trust-world";
 
 vi.mock("@/lib/auth/session", async () => (await import("../support/fake-session")).sessionModule());
@@ -34,15 +34,13 @@ async function fill(f: Fill, w: World): Promise<string> {
 }
 
 /** Builds the row's request with freshly made rows, then calls its handler. */
-export async function callRow(row: MatrixRow, w: World): Promise<Response> {
+async function callRow(row: MatrixRow, w: World): Promise<Response> {
   const ids: Ids = {};
   for (const [name, f] of Object.entries(row.params ?? {})) ids[name] = await fill(f, w);
   let path = row.route.replace(/\[([^\]]+)\]/g, (_, name: string) => encodeURIComponent(ids[name]));
-  path += (row.query ?? "").replace("{ownerPatient}", w.owner.patient.id).replace("{zirconia}", w.home.materialByKey["zirconia"].id);
-  const body = typeof row.body === "function" ? row.body(w, ids) : row.body;
-  const payload = body && typeof body === "object" && "form" in body && typeof body.form === "function" ? body.form(w, ids) : body;
+  path += rowQuery(row, w);
   const handler = await handlerFor(row);
-  return handler(apiRequest(row.method, path, payload), { params: Promise.resolve(ids) });
+  return handler(apiRequest(row.method, path, rowBody(row, w, ids)), { params: Promise.resolve(ids) });
 }
 
 describe("route × role matrix", () => {

@@ -121,6 +121,17 @@ function fileForm(fields: Record<string, string>, bytes: Uint8Array, name: strin
   return form;
 }
 
+/** The row's query string with its fillers replaced by the world's rows. */
+export function rowQuery(row: MatrixRow, w: World): string {
+  return (row.query ?? "").replace("{ownerPatient}", w.owner.patient.id).replace("{zirconia}", w.home.materialByKey["zirconia"].id);
+}
+
+/** The row's body: a JSON value, or a FormData for multipart rows. */
+export function rowBody(row: MatrixRow, w: World, ids: Ids): unknown {
+  const body = typeof row.body === "function" ? row.body(w, ids) : row.body;
+  return body && typeof body === "object" && "form" in body && typeof body.form === "function" ? body.form(w, ids) : body;
+}
+
 export function rowKey(method: string, route: string): string {
   return `${method} ${route}`;
 }
