@@ -3,7 +3,7 @@
 // route reads, and bodies are read through a streamed size cap before any parsing.
 import "server-only";
 import { NextResponse, type NextRequest } from "next/server";
-import { z, ZodError, type ZodType } from "zod";
+import { ZodError, type ZodType } from "zod";
 import { idSchema } from "@/lib/domain/input";
 import { fromDatabaseError } from "./db-errors";
 import { AppError, badRequest, forbidden } from "./errors";
