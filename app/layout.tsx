@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import "./globals.css";
 
 // Geist (SIL Open Font License), shipped in public/fonts: nothing is fetched from a font service.
@@ -12,7 +13,9 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#0d6e6e" };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request, so each one carries the nonce of its Content-Security-Policy.
+  await connection();
   return (
     <html lang="en" className={geist.variable}>
       <body className="min-h-dvh font-sans">

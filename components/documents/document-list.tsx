@@ -22,9 +22,12 @@ export function DocumentList({ documents, timeZone, emptyText }: { documents: Do
             </p>
           </div>
           <div className="flex shrink-0 gap-2">
-            <a className="btn-quiet" href={`/api/documents/${d.id}`}>
-              Open<span className="sr-only"> {d.title}</span>
-            </a>
+            {/* Only images open in the browser; an uploaded PDF is always saved (it could carry scripts). */}
+            {ALLOWED_CONTENT[d.contentType].image && (
+              <a className="btn-quiet" href={`/api/documents/${d.id}`}>
+                Open<span className="sr-only"> {d.title}</span>
+              </a>
+            )}
             <a className="btn-quiet" href={`/api/documents/${d.id}?download=1`}>
               Download<span className="sr-only"> {d.title}</span>
             </a>

@@ -1,14 +1,11 @@
 // zod schemas for booking requests and staff forms, shared by the browser and the server.
 import { z } from "zod";
+import { calendarDateSchema, idSchema, instantSchema } from "@/lib/domain/input";
 import { isValidFdi } from "@/lib/domain/tooth";
 import { MODES } from "@/lib/domain/types";
 
-const uuid = (what: string) => z.string({ message: `${what} is required.` }).uuid({ message: `${what} is not a valid id.` });
-const isoWithOffset = z
-  .string({ message: "start is required." })
-  .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/, { message: "start must be an ISO 8601 time with its offset, e.g. 2027-03-15T08:00:00-04:00." })
-  .transform((s) => new Date(s))
-  .refine((d) => !Number.isNaN(d.getTime()), { message: "start is not a real date and time." });
+const uuid = (what: string) => idSchema(what);
+const isoWithOffset = instantSchema("start");
 
 export const modeSchema = z.enum(MODES, { message: "mode must be rapid, standard or refined." });
 
@@ -23,7 +20,7 @@ export type BookingInput = z.infer<typeof bookingSchema>;
 export const availabilityQuerySchema = z.object({
   materialId: uuid("materialId"),
   mode: modeSchema,
-  from: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "from must be a date like 2027-03-15." }).optional(),
+  from: calendarDateSchema("from").optional(),
   days: z.coerce.number<number>({ message: "days must be a number." }).int({ message: "days must be a whole number." }).min(1, { message: "days must be at least 1." }).max(60, { message: "days can be at most 60." }).optional(),
 });
 
@@ -38,6 +35,8 @@ export const proposalSchema = z.object({
   fee: z.coerce.number<number>({ message: "Enter the fee." }).min(0, { message: "The fee cannot be negative." }).max(100_000, { message: "That fee looks too high." }),
   note: z.string().trim().max(1000, { message: "Keep the note under 1000 characters." }).optional(),
   options: z.array(z.object({ materialId: uuid("Material"), modes: z.array(modeSchema).min(1, { message: "Allow at least one mode." }) }))
-    .min(1, { message: "Allow at least one material." }),
+    .min(1, { message: "Allow at least one material." })
+    .max(50, { message: "That is too many materials for one proposal." })
+    .refine((options) => new Set(options.map((o) => o.materialId)).size === options.length, { message: "Each material can be listed only once." }),
 });
 export type ProposalInput = z.infer<typeof proposalSchema>;

@@ -6,7 +6,7 @@ import type { SessionUser } from "@/lib/auth/session";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
 import { describeTooth } from "@/lib/domain/tooth";
 import { recordAudit } from "@/lib/server/audit";
-import { forbidden, notFound, unprocessable } from "@/lib/server/errors";
+import { badRequest, forbidden, notFound, unprocessable } from "@/lib/server/errors";
 import { assertCanSee, patientOf } from "./access";
 import type { ProposalInput } from "@/lib/booking/schemas";
 
@@ -69,9 +69,19 @@ export function allowedOption(row: Proposal, materialId: string, mode: Mode) {
   return option;
 }
 
+/** The dentist who proposes: a dentist proposes as themself; a manager must name an active dentist of the clinic. */
+async function proposalDentist(user: SessionUser, named: string | undefined): Promise<string> {
+  if (user.role === "dentist") return user.id;
+  if (!named) throw badRequest("Choose the dentist who proposes this crown.", "dentistId");
+  const dentist = await User.findOne({ where: { id: named, clinicId: user.clinicId!, role: "dentist", active: true }, attributes: ["id"] });
+  if (!dentist) throw badRequest("Choose an active dentist of this clinic.", "dentistId");
+  return dentist.id;
+}
+
 export async function createProposal({ user, input, ip, userAgent }: { user: SessionUser; input: ProposalInput; ip?: string; userAgent?: string }) {
   const patient = await Patient.findOne({ where: { id: input.patientId, clinicId: user.clinicId! } });
   if (!patient) throw notFound("That patient");
+  const dentistId = await proposalDentist(user, input.dentistId);
   const materials = await Material.findAll({ where: { id: { [Op.in]: input.options.map((o) => o.materialId) }, clinicId: user.clinicId!, active: true }, include: [{ model: MaterialMode, as: "modes" }] });
   for (const option of input.options) {
     const material = materials.find((m) => m.id === option.materialId);
@@ -83,7 +93,7 @@ export async function createProposal({ user, input, ip, userAgent }: { user: Ses
   }
   return sequelize.transaction(async (transaction) => {
     const proposal = await Proposal.create(
-      { clinicId: user.clinicId!, patientId: patient.id, dentistId: user.role === "dentist" ? user.id : input.dentistId ?? user.id, tooth: input.tooth, feeCents: Math.round(input.fee * 100), note: input.note || null },
+      { clinicId: user.clinicId!, patientId: patient.id, dentistId, tooth: input.tooth, feeCents: Math.round(input.fee * 100), note: input.note || null },
       { transaction },
     );
     await ProposalMaterial.bulkCreate(input.options.map((o) => ({ proposalId: proposal.id, materialId: o.materialId, modes: o.modes })), { transaction });

@@ -1,6 +1,7 @@
 // The clinic manager's settings forms: one zod schema per form, shared by the browser form and the
 // server action (which parses again and never trusts the browser's parse).
 import { z } from "zod";
+import { calendarDateSchema, idSchema } from "./input";
 import { clinicSettingsSchema } from "./clinic-settings";
 
 const time = z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { message: "Enter a time as HH:MM." });
@@ -30,7 +31,7 @@ export type OpeningHoursInput = z.input<typeof openingHoursSchema>;
 export type OpeningHours = z.output<typeof openingHoursSchema>;
 
 export const closedDaySchema = z.object({
-  day: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "Choose a date." }),
+  day: z.string().min(1, { message: "Choose a date." }).pipe(calendarDateSchema("The day")),
   reason: z.string().trim().max(120, { message: "Keep the reason under 120 characters." }).optional(),
 });
 export type ClosedDayInput = z.infer<typeof closedDaySchema>;
@@ -38,7 +39,7 @@ export type ClosedDayInput = z.infer<typeof closedDaySchema>;
 export const EQUIPMENT_KIND_LABEL = { chair: "Chair", mill: "Mill", furnace: "Furnace" } as const;
 
 export const equipmentSchema = z.object({
-  id: z.string().optional(),
+  id: idSchema("The equipment").optional(),
   kind: z.enum(["chair", "mill", "furnace"], { error: "Choose chair, mill or furnace." }),
   name: z.string().trim().min(1, { message: "Give it a name staff will recognise." }).max(60, { message: "Keep the name under 60 characters." }),
   active: z.boolean(),
@@ -109,5 +110,5 @@ export const newStaffSchema = z.object({
 });
 export type NewStaffInput = z.input<typeof newStaffSchema>;
 
-export const staffUpdateSchema = z.object({ id: z.string().min(1), role: staffRole, active: z.boolean() });
+export const staffUpdateSchema = z.object({ id: idSchema("The staff account"), role: staffRole, active: z.boolean() });
 export type StaffUpdateInput = z.infer<typeof staffUpdateSchema>;

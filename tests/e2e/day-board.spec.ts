@@ -173,7 +173,8 @@ test("marking an equipment out of service lists the visits on it; a range ending
   await reception.getByLabel("Back in service at").fill(`${day}T11:00`);
   await reception.getByRole("button", { name: "Mark out of service" }).click();
   await expect(reception.getByText("The out-of-service range must end after it starts.")).toBeVisible();
-  const res = await reception.request.post("/api/board/outages", { data: { equipmentId: "x", start: `${day}T12:00`, end: `${day}T11:00` } });
+  // Any well-formed id: the range itself is refused before the equipment is looked up.
+  const res = await reception.request.post("/api/board/outages", { data: { equipmentId: "6d0c1a2b-0000-4000-8000-000000000000", start: `${day}T12:00`, end: `${day}T11:00` } });
   expect(res.status()).toBe(400);
   expect(await res.json()).toEqual({ error: "The out-of-service range must end after it starts.", field: "end" });
   await expectNoAxeViolations(reception);

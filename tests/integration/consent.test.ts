@@ -104,7 +104,7 @@ async function postSign(body: unknown, raw?: string) {
 
 const params = (id: string) => ({ params: Promise.resolve({ id }) });
 const post = (path: string, body?: unknown) =>
-  new NextRequest(`http://localhost${path}`, { method: "POST", headers: CLIENT, ...(body ? { body: JSON.stringify(body) } : {}) });
+  new NextRequest(`http://localhost${path}`, { method: "POST", headers: { ...CLIENT, ...(body ? { "content-type": "application/json" } : {}) }, ...(body ? { body: JSON.stringify(body) } : {}) });
 
 async function getPdf(id: string, query = "") {
   return pdfRoute(new NextRequest(`http://localhost/api/consents/${id}/pdf${query}`), params(id));
@@ -277,7 +277,7 @@ describe("access, review and verification", () => {
     expect((await getPdf(signed.consentId)).status).toBe(404);
     expect((await reviewRoute(post(`/api/consents/${signed.consentId}/review`), params(signed.consentId))).status).toBe(404);
     as(signed.patient);
-    expect((await getPdf("not-a-uuid")).status).toBe(404);
+    expect((await getPdf("not-a-uuid")).status).toBe(400);
     signOut();
     expect((await getPdf(signed.consentId)).status).toBe(401);
   });

@@ -31,6 +31,8 @@ export async function fakeSessionModule() {
       if (roles && !roles.includes(state.user.role)) throw forbidden();
       return state.user;
     },
+    requirePageUser: async () => state.user,
+    homeFor: (role: string) => (role === "patient" ? "/patient" : "/clinic"),
   };
 }
 

@@ -1,11 +1,10 @@
 import { NextResponse } from "next/server";
-import { z } from "zod";
 import { requireUser, STAFF_ROLES } from "@/lib/auth/session";
 import { bookVisit } from "@/lib/booking/book";
 import { bookingSchema } from "@/lib/booking/schemas";
 import { listVisits } from "@/lib/data/visits";
-import { APPOINTMENT_STATUSES } from "@/lib/domain/types";
-import { clientInfo, readJson, route } from "@/lib/server/api";
+import { clientInfo, parseQuery, readJson, route } from "@/lib/server/api";
+import { appointmentListQuery } from "@/lib/server/route-schemas";
 
 export const dynamic = "force-dynamic";
 
@@ -17,12 +16,10 @@ export const POST = route(async (req) => {
   return NextResponse.json({ id: visit.id, status: visit.status }, { status: 201 });
 });
 
-const listQuery = z.object({ status: z.enum(APPOINTMENT_STATUSES, { message: "Unknown status." }).optional() });
-
 /** The clinic's visits for staff, optionally by status. */
 export const GET = route(async (req) => {
   const user = await requireUser(STAFF_ROLES);
-  const { status } = listQuery.parse(Object.fromEntries(req.nextUrl.searchParams));
+  const { status } = parseQuery(req, appointmentListQuery);
   const visits = await listVisits({ user, statuses: status ? [status] : undefined });
   return NextResponse.json({ appointments: visits.map((v) => ({ ...v, tooth: v.tooth.fdi, start: v.start.toISOString(), end: v.end.toISOString() })) });
 });

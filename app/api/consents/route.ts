@@ -2,8 +2,8 @@ import { NextResponse, type NextRequest } from "next/server";
 import { requireUser, STAFF_ROLES } from "@/lib/auth/session";
 import { listConsents, signConsent } from "@/lib/data/consents";
 import { signConsentSchema } from "@/lib/domain/consent-schemas";
-import { clientInfo, route } from "@/lib/server/api";
-import { AppError, badRequest } from "@/lib/server/errors";
+import { clientInfo, parseQuery, readJson, route } from "@/lib/server/api";
+import { consentListQuery } from "@/lib/server/route-schemas";
 
 export const dynamic = "force-dynamic";
 
@@ -13,24 +13,19 @@ const MAX_BODY = 400_000;
 /** The clinic's consents, optionally by status (staff). */
 export const GET = route(async (req: NextRequest) => {
   const user = await requireUser(STAFF_ROLES);
-  const consents = await listConsents({ user, status: req.nextUrl.searchParams.get("status") });
+  const { status } = parseQuery(req, consentListQuery);
+  const consents = await listConsents({ user, status });
   return NextResponse.json({ consents });
 });
 
 /** The patient signs their visit's consent. */
 export const POST = route(async (req: NextRequest) => {
   const user = await requireUser(["patient"]);
-  const tooLarge = () => new AppError(413, "That signature is too large to send. Clear the box and sign again.", { field: "signature" });
-  if (Number(req.headers.get("content-length") ?? 0) > MAX_BODY) throw tooLarge();
-  const text = await req.text();
-  if (text.length > MAX_BODY) throw tooLarge();
-  let body: unknown;
-  try {
-    body = JSON.parse(text);
-  } catch {
-    throw badRequest("The request body must be valid JSON.");
-  }
-  const input = signConsentSchema.parse(body);
+  const input = await readJson(req, signConsentSchema, {
+    limit: MAX_BODY,
+    tooLargeMessage: "That signature is too large to send. Clear the box and sign again.",
+    tooLargeField: "signature",
+  });
   const signed = await signConsent({ user, input, ...clientInfo(req) });
   return NextResponse.json({ id: signed.consentId, status: signed.status, signedAt: signed.signedAt.toISOString() }, { status: 201 });
 });

@@ -3,7 +3,8 @@ import { requireUser } from "@/lib/auth/session";
 import { createDocument, listDocuments } from "@/lib/data/documents";
 import { formText, readUploadForm, uploadedFile } from "@/lib/documents/read-upload";
 import { documentFieldsSchema } from "@/lib/documents/schema";
-import { clientInfo, route } from "@/lib/server/api";
+import { clientInfo, parseQuery, route } from "@/lib/server/api";
+import { documentListQuery } from "@/lib/server/route-schemas";
 
 export const dynamic = "force-dynamic";
 
@@ -19,12 +20,12 @@ export const POST = route(async (req: NextRequest) => {
   });
   const { id } = await createDocument({ actor: user, ...fields, file, client: clientInfo(req) });
   return NextResponse.json({ id }, { status: 201 });
-});
+}, { body: "multipart" });
 
 /** The caller's documents (patient), or one patient's documents (staff, `?patientId=`). */
 export const GET = route(async (req: NextRequest) => {
   const user = await requireUser();
-  const patientId = req.nextUrl.searchParams.get("patientId") ?? undefined;
+  const { patientId } = parseQuery(req, documentListQuery);
   const { documents } = await listDocuments({ actor: user, patientId, client: clientInfo(req) });
   return NextResponse.json({ documents });
 });

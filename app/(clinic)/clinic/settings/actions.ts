@@ -7,7 +7,8 @@ import { headers } from "next/headers";
 import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import * as settings from "@/lib/data/settings";
-import { AppError } from "@/lib/server/errors";
+import { fromDatabaseError } from "@/lib/server/db-errors";
+import { AppError, badRequest } from "@/lib/server/errors";
 
 export type ActionState = { ok: true; message: string } | { ok: false; message: string; fieldErrors?: Record<string, string> };
 
@@ -25,7 +26,8 @@ async function asAdmin<T>(work: (actor: settings.Actor) => Promise<T>, done: str
       for (const issue of err.issues) fieldErrors[issue.path.join(".")] ??= issue.message;
       return { ok: false, message: err.issues[0]?.message ?? "Check the form.", fieldErrors };
     }
-    if (err instanceof AppError) return { ok: false, message: err.message, ...(err.field ? { fieldErrors: { [err.field]: err.message } } : {}) };
+    const known = err instanceof AppError ? err : fromDatabaseError(err);
+    if (known) return { ok: false, message: known.message, ...(known.field ? { fieldErrors: { [known.field]: known.message } } : {}) };
     console.error("Settings action failed:", err instanceof Error ? err.stack : err);
     return { ok: false, message: "Something went wrong on our side. Please try again." };
   }
@@ -38,7 +40,16 @@ export async function addClosedDayAction(input: unknown) {
   return asAdmin((a) => settings.addClosedDay(a, input), "Closed day added.", "/clinic/settings/hours");
 }
 export async function removeClosedDayAction(id: number) {
-  return asAdmin((a) => settings.removeClosedDay(a, Number(id)), "Closed day removed.", "/clinic/settings/hours");
+  return asAdmin(
+    (a) => {
+      // A server action's argument is whatever the browser posted: only a positive whole number is an id.
+      const n = Number(id);
+      if (!Number.isSafeInteger(n) || n < 1) throw badRequest("That closed day is not valid.", "id");
+      return settings.removeClosedDay(a, n);
+    },
+    "Closed day removed.",
+    "/clinic/settings/hours",
+  );
 }
 export async function saveEquipmentAction(input: unknown) {
   return asAdmin((a) => settings.saveEquipment(a, input), "Equipment saved.", "/clinic/settings/equipment");

@@ -16,5 +16,6 @@ export const GET = route(async () => {
 export const POST = route(async (req) => {
   const user = await requireUser(STAFF_ROLES);
   const body = await readJson(req, z.unknown());
+  // createOutage parses it with the form's schema.
   return NextResponse.json(await createOutage({ user, input: body, ...clientInfo(req) }), { status: 201 });
 });

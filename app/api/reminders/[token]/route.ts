@@ -2,40 +2,30 @@
 // POST only: mail programs send the one-click POST of RFC 8058 (List-Unsubscribe-Post), our
 // link page posts its form here. A GET never changes anything (link scanners follow GETs).
 import { NextResponse, type NextRequest } from "next/server";
-import { z } from "zod";
 import { setRemindersByToken } from "@/lib/data/mail";
-import { clientInfo, route } from "@/lib/server/api";
-import { badRequest } from "@/lib/server/errors";
+import { clientInfo, JSON_BODY_LIMIT, readForm, readJson, route } from "@/lib/server/api";
+import { mediaType } from "@/lib/server/request-policy";
+import { reminderFormBody, reminderJsonBody } from "@/lib/server/route-schemas";
 
 export const dynamic = "force-dynamic";
 
 type Ctx = { params: Promise<{ token: string }> };
 
-const formSchema = z.object({ enabled: z.enum(["true", "false"], { message: "Choose on or off." }) });
-const jsonSchema = z.object({ enabled: z.boolean({ message: "enabled must be true or false." }) });
-
 export const POST = route<Ctx>(async (req: NextRequest, { params }) => {
   const { token } = await params;
-  const type = req.headers.get("content-type") ?? "";
   let enabled: boolean;
   let fromPage = false;
-  if (type.includes("application/json")) {
-    const body = await req.json().catch(() => {
-      throw badRequest("The request body must be valid JSON.");
-    });
-    enabled = jsonSchema.parse(body).enabled;
-  } else if (type.includes("application/x-www-form-urlencoded") || type.includes("multipart/form-data")) {
-    const form = await req.formData().catch(() => {
-      throw badRequest("The form could not be read.");
-    });
+  if (mediaType(req.headers.get("content-type")) === "application/json") {
+    enabled = (await readJson(req, reminderJsonBody)).enabled;
+  } else {
+    // Anyone may post here (the token is the authority), so the form is read under the same cap.
+    const form = await readForm(req, JSON_BODY_LIMIT);
     if (form.get("List-Unsubscribe") === "One-Click") {
       enabled = false;
     } else {
-      enabled = formSchema.parse({ enabled: form.get("enabled") }).enabled === "true";
+      enabled = reminderFormBody.parse({ enabled: form.get("enabled") }).enabled === "true";
       fromPage = true;
     }
-  } else {
-    throw badRequest("Send a form or JSON.");
   }
   const result = await setRemindersByToken({ token, enabled, ...clientInfo(req) });
   if (fromPage) {
@@ -43,7 +33,7 @@ export const POST = route<Ctx>(async (req: NextRequest, { params }) => {
     return NextResponse.redirect(url, 303);
   }
   return NextResponse.json({ remindersEnabled: result.remindersEnabled });
-});
+}, { body: "form-or-json" });
 
 export const GET = route<Ctx>(async (req, { params }) => {
   const { token } = await params;

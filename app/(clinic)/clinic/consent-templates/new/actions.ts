@@ -3,6 +3,7 @@
 import { headers } from "next/headers";
 import { requireUser } from "@/lib/auth/session";
 import { publishTemplateVersion, type PublishResult } from "@/lib/data/consents";
+import { fromDatabaseError } from "@/lib/server/db-errors";
 import { AppError } from "@/lib/server/errors";
 
 /** Publishes the edited consent text as a new version (clinic manager only). */
@@ -17,7 +18,8 @@ export async function publishTemplate(values: unknown): Promise<PublishResult> {
       userAgent: h.get("user-agent") ?? "unknown",
     });
   } catch (err) {
-    if (err instanceof AppError) return { ok: false, error: err.message };
+    const known = err instanceof AppError ? err : fromDatabaseError(err);
+    if (known) return { ok: false, error: known.message, ...(known.field ? { field: known.field } : {}) };
     throw err;
   }
 }

@@ -4,14 +4,14 @@ import { availabilityQuerySchema } from "@/lib/booking/schemas";
 import { searchSlots } from "@/lib/booking/search";
 import { allowedOption, getProposal } from "@/lib/data/proposals";
 import { isoInZone } from "@/lib/domain/time-zone";
-import { route } from "@/lib/server/api";
+import { idParams, parseQuery, route } from "@/lib/server/api";
 
 export const dynamic = "force-dynamic";
 
 export const GET = route<{ params: Promise<{ id: string }> }>(async (req, { params }) => {
   const user = await requireUser(["patient", "reception", "dentist", "admin"]);
-  const { id } = await params;
-  const query = availabilityQuerySchema.parse(Object.fromEntries(req.nextUrl.searchParams));
+  const { id } = await idParams(params, "id");
+  const query = parseQuery(req, availabilityQuerySchema);
   const { row } = await getProposal({ user, id });
   allowedOption(row, query.materialId, query.mode);
   const { timezone, slots, totalMinutes } = await searchSlots({ proposal: row, materialId: query.materialId, mode: query.mode, from: query.from, days: query.days });
