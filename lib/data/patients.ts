@@ -177,13 +177,15 @@ export type PatientDetails = PatientListItem & {
 
 async function loadClinicPatient(clinicId: string, patientId: string, transaction?: Transaction, lock = false) {
   if (!isUuid(patientId)) throw notFound("That patient");
+  // Locked alone: PostgreSQL cannot lock the nullable side of the join an include makes.
   const row = await Patient.findOne({
     where: { id: patientId, clinicId },
-    include: [{ model: User, as: "user" }],
     transaction,
-    ...(lock && transaction ? { lock: transaction.LOCK.UPDATE, of: Patient } : {}),
+    ...(lock && transaction ? { lock: transaction.LOCK.UPDATE } : {}),
   });
-  if (!row || !row.user) throw notFound("That patient");
+  const account = row ? await User.findByPk(row.userId, { transaction }) : null;
+  if (!row || !account) throw notFound("That patient");
+  row.user = account;
   return row as Patient & { user: User };
 }
 
