@@ -1,6 +1,6 @@
 // A patient's details as staff register and correct them, and as patients change their own:
 // one set of zod schemas for the forms and the route handlers, phone numbers in E.164, real dates of birth.
-import { parsePhoneNumberFromString, type CountryCode } from "libphonenumber-js";
+import { getCountryCallingCode, parsePhoneNumberFromString, type CountryCode } from "libphonenumber-js";
 import { z } from "zod";
 
 export const LANGUAGES = ["en", "fr"] as const;
@@ -30,15 +30,20 @@ export const PATIENT_MESSAGES = {
 export function toE164(input: string, country: CountryCode = DEFAULT_COUNTRY): string | null {
   const parsed = parsePhoneNumberFromString(input.trim(), country);
   if (!parsed || !parsed.isValid()) return null;
-  return parsed.number;
+  // The library accepts some national plans' longest numbers beyond E.164's 15-digit cap; the standard wins.
+  return E164_PATTERN.test(parsed.number) ? parsed.number : null;
 }
+
+/** ITU-T E.164: "+", a country code not starting with 0, at most 15 digits in all. */
+export const E164_PATTERN = /^\+[1-9]\d{1,14}$/;
 
 /** An E.164 number as people of the clinic's country write it: nationally at home, internationally otherwise. */
 export function displayPhone(e164: string | null | undefined, country: CountryCode = DEFAULT_COUNTRY): string {
   if (!e164) return "";
   const parsed = parsePhoneNumberFromString(e164);
   if (!parsed) return e164;
-  return parsed.country === country ? parsed.formatNational() : parsed.formatInternational();
+  // By calling code, not country: countries sharing one (Canada and the US, Finland and Åland) dial each other nationally.
+  return parsed.countryCallingCode === getCountryCallingCode(country) ? parsed.formatNational() : parsed.formatInternational();
 }
 
 /** Problem with a YYYY-MM-DD date of birth, or null. `today` is the clinic's local date. */
