@@ -6,7 +6,7 @@ import type { SessionUser } from "@/lib/auth/session";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
 import { describeTooth } from "@/lib/domain/tooth";
 import { recordAudit } from "@/lib/server/audit";
-import { notFound, unprocessable } from "@/lib/server/errors";
+import { conflict, notFound, unprocessable } from "@/lib/server/errors";
 import { assertCanSee, patientOf } from "./access";
 import type { ProposalInput } from "@/lib/booking/schemas";
 
@@ -72,6 +72,7 @@ export function allowedOption(row: Proposal, materialId: string, mode: Mode) {
 export async function createProposal({ user, input, ip, userAgent }: { user: SessionUser; input: ProposalInput; ip?: string; userAgent?: string }) {
   const patient = await Patient.findOne({ where: { id: input.patientId, clinicId: user.clinicId! } });
   if (!patient) throw notFound("That patient");
+  if (patient.archivedAt) throw conflict("This patient is archived. Unarchive them before proposing a crown.");
   const materials = await Material.findAll({ where: { id: { [Op.in]: input.options.map((o) => o.materialId) }, clinicId: user.clinicId!, active: true }, include: [{ model: MaterialMode, as: "modes" }] });
   for (const option of input.options) {
     const material = materials.find((m) => m.id === option.materialId);

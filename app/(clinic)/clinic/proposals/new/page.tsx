@@ -6,10 +6,11 @@ import { ProposalForm } from "./proposal-form";
 
 export const metadata: Metadata = { title: "New crown proposal" };
 
-export default async function NewProposalPage() {
+export default async function NewProposalPage({ searchParams }: { searchParams: Promise<{ patient?: string }> }) {
   const user = await requirePageUser(["dentist", "admin"]);
+  const { patient: preselected } = await searchParams;
   const [patients, materials, dentists] = await Promise.all([
-    Patient.findAll({ where: { clinicId: user.clinicId! }, include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
+    Patient.findAll({ where: { clinicId: user.clinicId!, archivedAt: null }, include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
     listMaterials({ clinicId: user.clinicId! }),
     User.findAll({ where: { clinicId: user.clinicId!, role: "dentist", active: true }, attributes: ["id", "name"] }),
   ]);
@@ -20,6 +21,7 @@ export default async function NewProposalPage() {
       <ProposalForm
         role={user.role}
         patients={patients.map((p) => ({ id: p.id, name: p.user?.name ?? p.user?.email ?? "Patient" })).sort((a, b) => a.name.localeCompare(b.name))}
+        patientId={preselected}
         dentists={dentists.map((d) => ({ id: d.id, name: d.name ?? "Dentist" }))}
         materials={materials.map((m) => ({ id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode) }))}
       />
