@@ -187,3 +187,10 @@ export function searchTerms(q: string): { text: string | null; digits: string | 
 export function likeContains(text: string): string {
   return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
+
+/** The patient's "My details" form: every field present; an empty phone clears it. */
+export function myDetailsFormSchema(country: CountryCode) {
+  return z.object({ phone: phoneField(country), language: languageField, reminders: z.boolean(), email: emailField });
+}
+export type MyDetailsFormInput = z.input<ReturnType<typeof myDetailsFormSchema>>;
+export type MyDetailsForm = z.output<ReturnType<typeof myDetailsFormSchema>>;
