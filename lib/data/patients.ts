@@ -239,18 +239,27 @@ export async function updatePatient({ user, patientId, changes, info = {} }: { u
     }
     const changed: string[] = [];
     const userValues: Partial<{ name: string; email: string; active: boolean; emailVerified: Date | null }> = {};
-    if (changes.name !== undefined && changes.name !== account.name) (userValues.name = changes.name), changed.push("name");
+    const patientValues: Partial<Pick<Patient, "dateOfBirth" | "phone" | "language" | "address" | "reminders" | "archivedAt">> = {};
+    if (changes.name !== undefined && changes.name !== account.name) {
+      userValues.name = changes.name;
+      changed.push("name");
+    }
     if (changes.email !== undefined && changes.email !== account.email) {
       userValues.email = changes.email;
       userValues.emailVerified = null;
       changed.push("email");
     }
-    const patientValues: Partial<Pick<Patient, "dateOfBirth" | "phone" | "language" | "address" | "reminders" | "archivedAt">> = {};
-    if (changes.dateOfBirth !== undefined && changes.dateOfBirth !== row.dateOfBirth) (patientValues.dateOfBirth = changes.dateOfBirth), changed.push("dateOfBirth");
-    if (changes.phone !== undefined && (changes.phone ?? null) !== row.phone) (patientValues.phone = changes.phone ?? null), changed.push("phone");
-    if (changes.language !== undefined && changes.language !== row.language) (patientValues.language = changes.language), changed.push("language");
-    if (changes.address !== undefined && (changes.address ?? null) !== row.address) (patientValues.address = changes.address ?? null), changed.push("address");
-    if (changes.reminders !== undefined && changes.reminders !== row.reminders) (patientValues.reminders = changes.reminders), changed.push("reminders");
+    // null clears a field; undefined leaves it.
+    const setPatient = <K extends keyof typeof patientValues>(key: K, value: (typeof patientValues)[K] | undefined, current: unknown) => {
+      if (value === undefined || (value ?? null) === current) return;
+      patientValues[key] = value;
+      changed.push(key);
+    };
+    setPatient("dateOfBirth", changes.dateOfBirth, row.dateOfBirth);
+    setPatient("phone", changes.phone === undefined ? undefined : changes.phone ?? null, row.phone);
+    setPatient("language", changes.language, row.language);
+    setPatient("address", changes.address === undefined ? undefined : changes.address ?? null, row.address);
+    setPatient("reminders", changes.reminders, row.reminders);
     let action = "patient.updated";
     if (changes.archived !== undefined && changes.archived !== (row.archivedAt !== null)) {
       // Archiving keeps every record; it only stops the account from signing in.
