@@ -39,7 +39,7 @@ test.describe("patient records", () => {
     // A bad phone and an impossible date are refused in the form, with a message at each field.
     await reception.getByLabel("Full name").fill(name);
     await reception.getByLabel("Date of birth").fill("1991-06-12");
-    await reception.getByLabel("E-mail").fill(email);
+    await reception.getByLabel("E-mail", { exact: true }).fill(email);
     await reception.getByLabel("Mobile phone (optional)").fill("555 01");
     await reception.getByRole("button", { name: "Register patient" }).click();
     await expect(reception.locator("#patient-phone-error")).toContainText("Enter a mobile number");
@@ -68,7 +68,7 @@ test.describe("patient records", () => {
     await reception.goto("/clinic/patients/new");
     await reception.getByLabel("Full name").fill(name.toUpperCase().replace("Ë", "E"));
     await reception.getByLabel("Date of birth").fill("1991-06-12");
-    await reception.getByLabel("E-mail").fill(`other.${email}`);
+    await reception.getByLabel("E-mail", { exact: true }).fill(`other.${email}`);
     await reception.getByRole("button", { name: "Register patient" }).click();
     const problem = reception.getByTestId("register-problem");
     await expect(problem).toContainText("already registered");
@@ -96,7 +96,7 @@ test.describe("patient records", () => {
     const dentist = await pageFor(browser, DESK, "dentist@cuspal.test");
     await dentist.goto(`/clinic/patients/${patientId}`);
     await dentist.getByRole("link", { name: "Propose a crown" }).click();
-    await expect(dentist.getByLabel("Patient")).toHaveValue(patientId);
+    await expect(dentist.getByLabel("Patient", { exact: true })).toHaveValue(patientId);
     await dentist.getByLabel("Tooth (ISO 3950, two digits)").fill("36");
     await dentist.locator("div.rounded-lg").filter({ hasText: "Zirconia" }).first().getByLabel("Standard").check();
     await dentist.getByLabel("Fee (CAD)").fill("1250");
