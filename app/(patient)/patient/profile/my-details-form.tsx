@@ -43,7 +43,7 @@ export function MyDetailsForm({ country, initial, pendingEmail }: { country: Cou
           ))}
         </div>
       </fieldset>
-      <label className="inline-flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> E-mail me reminders before my visits</label>
+      <label className="flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> E-mail me reminders before my visits</label>
       <div>
         <label htmlFor="me-email" className="field-label">E-mail</label>
         <input id="me-email" type="email" autoComplete="email" className="field-input" aria-invalid={!!errors.email} aria-describedby="me-email-hint" {...register("email")} />

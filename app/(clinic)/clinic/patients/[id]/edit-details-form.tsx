@@ -57,7 +57,7 @@ export function EditDetailsForm({ patientId, country, today, initial }: { patien
         <textarea id="edit-address" rows={2} className="field-input" {...register("address")} />
         {errors.address ? <p className="field-error">{errors.address.message}</p> : null}
       </div>
-      <label className="inline-flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> Send visit reminders by e-mail</label>
+      <label className="flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> Send visit reminders by e-mail</label>
       {status ? (
         <p role={status.ok ? "status" : "alert"} className={status.ok ? "text-sm text-harbour-700" : "text-sm text-clay-700"}>
           {status.text} {status.existingId ? <Link href={`/clinic/patients/${status.existingId}`}>Open that patient</Link> : null}

@@ -76,7 +76,7 @@ export function RegisterPatientForm({ country, today }: { country: CountryCode; 
         <textarea id="patient-address" rows={2} className="field-input" aria-invalid={!!errors.address} {...register("address")} />
         {errors.address ? <p className="field-error">{errors.address.message}</p> : null}
       </div>
-      <label className="inline-flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> Send visit reminders by e-mail</label>
+      <label className="flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> Send visit reminders by e-mail</label>
       <button type="submit" className="btn-primary w-full sm:w-auto" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Registering…" : "Register patient"}</button>
     </form>
   );
