@@ -7,7 +7,8 @@ import { NextRequest } from "next/server";
 import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { AuditEvent, Patient, User, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
-import { createTestClinic, createTestPatient, type TestClinic } from "../support/fixtures";
+import { bookVisit } from "@/lib/booking/book";
+import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
 import { caughtFor, eventually } from "../support/mail";
 
 const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
@@ -254,6 +255,19 @@ describe("the patient's own profile", () => {
     // The link works once.
     const twice = await confirm(new NextRequest(`http://localhost${link.pathname}${link.search}`));
     expect(twice.headers.get("location")).toContain("notice=email-link-expired");
+  });
+
+  it("new visits start with the patient's reminder preference", async () => {
+    const { user, patient } = await createTestPatient(t.clinic.id, "Quiet Patient");
+    await patient.update({ reminders: false });
+    const proposal = await createTestProposal(t, patient.id);
+    const session = { id: user.id, email: user.email, name: user.name, role: user.role, clinicId: user.clinicId };
+    // Wednesday 2027-03-10, 08:00 in Toronto (EST, UTC−5), booked a week before.
+    const visit = await bookVisit({
+      proposalId: proposal.id, materialId: t.materialByKey["zirconia"].id, mode: "standard",
+      start: new Date("2027-03-10T13:00:00Z"), actor: { user: session }, now: new Date("2027-03-01T12:00:00Z"),
+    });
+    expect(visit.remindersEnabled).toBe(false);
   });
 
   it("is for patients only", async () => {
