@@ -7,7 +7,7 @@ export default async function PatientLayout({ children }: { children: React.Reac
   const user = await requirePageUser(["patient"]);
   return (
     <>
-      <SiteHeader user={user} nav={[{ href: "/patient", label: "My crown" }, { href: "/patient/documents", label: "Documents" }]} />
+      <SiteHeader user={user} nav={[{ href: "/patient", label: "My crown" }, { href: "/patient/documents", label: "Documents" }, { href: "/patient/profile", label: "My details" }]} />
       <main id="main" className="mx-auto max-w-page px-gutter py-6">{children}</main>
     </>
   );

@@ -17,11 +17,15 @@ export const DEMO_PEOPLE = [
 ] as const;
 
 /** Other invented patients, so the clinic's day is not empty. */
+// Phone numbers are in the 555-0100…0199 range North America keeps for fiction.
 export const OTHER_PATIENTS = [
-  { email: "tobias.renfrew@cuspal.test", name: "Tobias Renfrew", dateOfBirth: "1971-06-02" },
-  { email: "marisol.akande@cuspal.test", name: "Marisol Akande", dateOfBirth: "1988-11-19" },
-  { email: "henrik.oyelaran@cuspal.test", name: "Henrik Oyelaran", dateOfBirth: "1959-02-27" },
-];
+  { email: "tobias.renfrew@cuspal.test", name: "Tobias Renfrew", dateOfBirth: "1971-06-02", phone: "+16135550141", language: "en" },
+  { email: "marisol.akande@cuspal.test", name: "Marisol Akande", dateOfBirth: "1988-11-19", phone: "+16135550152", language: "en" },
+  { email: "henrik.oyelaran@cuspal.test", name: "Henrik Oyelaran", dateOfBirth: "1959-02-27", phone: "+16135550163", language: "en" },
+  { email: "celeste.brisebois@cuspal.test", name: "Céleste Brisebois-Lafrenière", dateOfBirth: "1993-08-05", phone: "+18195550117", language: "fr" },
+  { email: "noe.varennes@cuspal.test", name: "Noé Varennes", dateOfBirth: "2001-12-29", phone: "+16135550186", language: "fr" },
+  { email: "ingrid.tamaro@cuspal.test", name: "Ingrid Tamaro", dateOfBirth: "1966-04-11", phone: null, language: "en" },
+] as const;
 
 export async function seedClinic(transaction: Transaction) {
   const clinic = await Clinic.create(
@@ -51,13 +55,13 @@ export async function seedClinic(transaction: Transaction) {
     { transaction },
   );
   const patient = await Patient.create(
-    { userId: users.patient.id, clinicId: clinic.id, dateOfBirth: "1984-03-17", phone: "+1 555 0178" },
+    { userId: users.patient.id, clinicId: clinic.id, dateOfBirth: "1984-03-17", phone: "+16135550178", language: "en", address: "12 Cedar Lane, Ottawa ON" },
     { transaction },
   );
   const others: Patient[] = [];
   for (const p of OTHER_PATIENTS) {
     const u = await User.create({ email: p.email, name: p.name, role: "patient", clinicId: clinic.id, passwordHash, emailVerified: null }, { transaction });
-    others.push(await Patient.create({ userId: u.id, clinicId: clinic.id, dateOfBirth: p.dateOfBirth, phone: null }, { transaction }));
+    others.push(await Patient.create({ userId: u.id, clinicId: clinic.id, dateOfBirth: p.dateOfBirth, phone: p.phone, language: p.language }, { transaction }));
   }
 
   // Monday–Friday with a lunch break, Saturday morning, Sunday closed.

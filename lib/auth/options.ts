@@ -7,6 +7,7 @@ import EmailProvider from "next-auth/providers/email";
 import { User } from "@/db/models";
 import { sequelize } from "@/db/sequelize";
 import type { Role } from "@/db/models/user";
+import { recordPatientSignIn } from "@/lib/data/patient-invitations";
 import { sendSignInLink } from "@/lib/mail/sign-in-link";
 import { DUMMY_HASH, verifyPassword } from "./password";
 import { clearFailures, recordFailure, tooManyFailures } from "./rate-limit";
@@ -51,6 +52,12 @@ export const authOptions: NextAuthOptions = {
       sendVerificationRequest: ({ identifier, url }) => sendSignInLink({ to: identifier, url }),
     }),
   ],
+  events: {
+    // Staff see when an invited patient first and last signed in.
+    async signIn({ user }) {
+      if (user.id) await recordPatientSignIn(user.id);
+    },
+  },
   callbacks: {
     // The link is only for existing, active patients: nobody signs up by asking for a link.
     // Others see the same "check your e-mail" page, so the form does not reveal who has an account.

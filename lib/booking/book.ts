@@ -2,7 +2,7 @@
 // window, all in one transaction. PostgreSQL's exclusion constraint on reservations is the final
 // guard against double booking: of two concurrent requests for the same resources, one fails.
 import { Op, UniqueConstraintError, ExclusionConstraintError, type Transaction } from "sequelize";
-import { Appointment, AppointmentStage, Clinic, Proposal, ProposalMaterial, Reservation, sequelize } from "@/db/models";
+import { Appointment, AppointmentStage, Clinic, Patient, Proposal, ProposalMaterial, Reservation, sequelize } from "@/db/models";
 import { assertCanSee } from "@/lib/data/access";
 import { allowedOption } from "@/lib/data/proposals";
 import type { SessionUser } from "@/lib/auth/session";
@@ -87,6 +87,8 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
         const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, transaction });
         if (active) throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.", { appointmentId: active.id });
         const { assignment, rules } = await placeAt({ clinic, proposal: p, timeline, start: opts.start, now, transaction });
+        // A new visit starts with the patient's standing reminder preference; they can still change it per visit.
+        const patient = await Patient.findByPk(p.patientId, { attributes: ["reminders"], transaction });
         const appointment = await Appointment.create(
           {
             clinicId: clinic.id,
@@ -102,6 +104,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
             millId: assignment.mill!,
             furnaceId: assignment.furnace,
             feeCents: p.feeCents,
+            remindersEnabled: patient?.reminders ?? true,
             createdBy: actor.user.id,
           },
           { transaction },

@@ -6,7 +6,7 @@ import type { SessionUser } from "@/lib/auth/session";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
 import { describeTooth } from "@/lib/domain/tooth";
 import { recordAudit } from "@/lib/server/audit";
-import { badRequest, forbidden, notFound, unprocessable } from "@/lib/server/errors";
+import { badRequest, conflict, forbidden, notFound, unprocessable } from "@/lib/server/errors";
 import { assertCanSee, patientOf } from "./access";
 import type { ProposalInput } from "@/lib/booking/schemas";
 
@@ -81,6 +81,7 @@ async function proposalDentist(user: SessionUser, named: string | undefined): Pr
 export async function createProposal({ user, input, ip, userAgent }: { user: SessionUser; input: ProposalInput; ip?: string; userAgent?: string }) {
   const patient = await Patient.findOne({ where: { id: input.patientId, clinicId: user.clinicId! } });
   if (!patient) throw notFound("That patient");
+  if (patient.archivedAt) throw conflict("This patient is archived. Unarchive them before proposing a crown.");
   const dentistId = await proposalDentist(user, input.dentistId);
   const materials = await Material.findAll({ where: { id: { [Op.in]: input.options.map((o) => o.materialId) }, clinicId: user.clinicId!, active: true }, include: [{ model: MaterialMode, as: "modes" }] });
   for (const option of input.options) {
@@ -106,7 +107,7 @@ export async function createProposal({ user, input, ip, userAgent }: { user: Ses
 export async function proposalFormChoices({ user }: { user: SessionUser }) {
   if (user.role !== "dentist" && user.role !== "admin") throw forbidden();
   const [patients, dentists] = await Promise.all([
-    Patient.findAll({ where: { clinicId: user.clinicId! }, include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
+    Patient.findAll({ where: { clinicId: user.clinicId!, archivedAt: null }, include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
     User.findAll({ where: { clinicId: user.clinicId!, role: "dentist", active: true }, attributes: ["id", "name"] }),
   ]);
   return {

@@ -6,8 +6,9 @@ import { ProposalForm } from "./proposal-form";
 
 export const metadata: Metadata = { title: "New crown proposal" };
 
-export default async function NewProposalPage() {
+export default async function NewProposalPage({ searchParams }: { searchParams: Promise<{ patient?: string }> }) {
   const user = await requirePageUser(["dentist", "admin"]);
+  const { patient: preselected } = await searchParams;
   const [{ patients, dentists }, materials] = await Promise.all([proposalFormChoices({ user }), listMaterials({ clinicId: user.clinicId! })]);
   return (
     <div className="mx-auto max-w-read space-y-4">
@@ -16,6 +17,7 @@ export default async function NewProposalPage() {
       <ProposalForm
         role={user.role}
         patients={patients}
+        patientId={preselected}
         dentists={dentists}
         materials={materials.map((m) => ({ id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode) }))}
       />

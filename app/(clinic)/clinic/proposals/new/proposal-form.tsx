@@ -15,17 +15,19 @@ type Output = z.output<typeof proposalSchema>;
 type Props = {
   role: string;
   patients: { id: string; name: string }[];
+  /** Preselected when the proposal is started from a patient's page. */
+  patientId?: string;
   dentists: { id: string; name: string }[];
   materials: { id: string; name: string; toothClasses: string[]; modes: Mode[] }[];
 };
 
-export function ProposalForm({ role, patients, dentists, materials }: Props) {
+export function ProposalForm({ role, patients, patientId, dentists, materials }: Props) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [allowed, setAllowed] = useState<Record<string, Mode[]>>({});
   const { register, handleSubmit, control, setValue, formState } = useForm<Input, unknown, Output>({
     resolver: zodResolver(proposalSchema),
-    defaultValues: { options: [], note: "" },
+    defaultValues: { options: [], note: "", patientId: patientId ?? "" },
   });
   const tooth = useWatch({ control, name: "tooth" });
   const toothInfo = tooth && isValidFdi(String(tooth)) ? describeTooth(Number(tooth)) : null;
@@ -52,7 +54,7 @@ export function ProposalForm({ role, patients, dentists, materials }: Props) {
       {message ? <p role="alert" className="rounded-lg bg-clay-50 p-3 text-sm font-medium text-clay-700">{message}</p> : null}
       <div>
         <label htmlFor="patientId" className="field-label">Patient</label>
-        <select id="patientId" className="field-input" {...register("patientId")} defaultValue="">
+        <select id="patientId" className="field-input" {...register("patientId")}>
           <option value="" disabled>Choose a patient</option>
           {patients.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
         </select>
