@@ -2,6 +2,7 @@
 import "server-only";
 import { NextResponse, type NextRequest } from "next/server";
 import { ZodError, type ZodType } from "zod";
+import { clientIpFrom } from "./client-ip";
 import { AppError, badRequest } from "./errors";
 
 type Handler<C> = (req: NextRequest, ctx: C) => Promise<Response>;
@@ -44,6 +45,5 @@ export async function readJson<T>(req: Request, schema: ZodType<T>): Promise<T> 
 }
 
 export function clientInfo(req: Request): { ip: string; userAgent: string } {
-  const forwarded = req.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return { ip: forwarded || req.headers.get("x-real-ip") || "unknown", userAgent: req.headers.get("user-agent") ?? "unknown" };
+  return { ip: clientIpFrom(req.headers), userAgent: req.headers.get("user-agent") ?? "unknown" };
 }

@@ -8,6 +8,7 @@ import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import * as settings from "@/lib/data/settings";
 import { AppError } from "@/lib/server/errors";
+import { clientIpFrom } from "@/lib/server/client-ip";
 
 export type ActionState = { ok: true; message: string } | { ok: false; message: string; fieldErrors?: Record<string, string> };
 
@@ -15,7 +16,7 @@ async function asAdmin<T>(work: (actor: settings.Actor) => Promise<T>, done: str
   try {
     const user = await requireUser(["admin"]);
     const h = await headers();
-    const actor = { user, ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown", userAgent: h.get("user-agent") ?? "unknown" };
+    const actor = { user, ip: clientIpFrom(h), userAgent: h.get("user-agent") ?? "unknown" };
     await work(actor);
     revalidatePath(path);
     return { ok: true, message: done };
