@@ -6,16 +6,16 @@ import { createServer } from "node:http";
 import next from "next";
 
 const port = Number(process.env.PORT ?? 3000);
-const hostname = process.env.HOSTNAME_BIND ?? "127.0.0.1";
 const args = process.argv.slice(2);
 const flag = (name) => {
   const i = args.indexOf(name);
   return i >= 0 ? args[i + 1] : undefined;
 };
 const listenPort = Number(flag("-p") ?? port);
-const listenHost = flag("-H") ?? hostname;
+// Like `next start`: every interface unless -H names one.
+const listenHost = flag("-H");
 
-const app = next({ dev: false, hostname: listenHost, port: listenPort });
+const app = next({ dev: false, hostname: listenHost ?? "localhost", port: listenPort });
 await app.prepare();
 const handle = app.getRequestHandler();
 
@@ -28,5 +28,5 @@ createServer((req, res) => {
   delete req.headers["x-real-ip"];
   handle(req, res);
 }).listen(listenPort, listenHost, () => {
-  console.log(`Cuspal is listening on http://${listenHost}:${listenPort}`);
+  console.log(`Cuspal is listening on port ${listenPort}`);
 });

@@ -15,6 +15,7 @@ import {
   stageDurationsSchema, staffUpdateSchema,
 } from "@/lib/domain/settings-schemas";
 import { recordAudit } from "@/lib/server/audit";
+import { changeStaffAccess } from "./staff";
 import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
 
 export type Actor = { user: SessionUser; ip?: string; userAgent?: string };
@@ -221,19 +222,8 @@ export async function createStaffAccount(actor: Actor, input: unknown) {
   }
 }
 
+/** The settings form's save: the same change as `PATCH /api/staff/:id` (lib/data/staff.ts). */
 export async function updateStaffAccount(actor: Actor, input: unknown) {
-  const clinicId = adminOf(actor);
   const value = staffUpdateSchema.parse(input);
-  return audited(actor, "settings.staff_changed", { type: "user", id: value.id }, async (transaction) => {
-    const row = await User.findOne({ where: { id: value.id, clinicId, role: { [Op.in]: ["reception", "dentist", "admin"] } }, transaction, lock: transaction.LOCK.UPDATE });
-    if (!row) throw notFound("That staff account");
-    const losesAdmin = row.role === "admin" && (value.role !== "admin" || !value.active);
-    if (losesAdmin) {
-      const admins = await User.count({ where: { clinicId, role: "admin", active: true, id: { [Op.ne]: row.id } }, transaction });
-      if (admins === 0) throw new AppError(409, "The clinic needs at least one active clinic manager: make someone else manager first.", { field: "role" });
-    }
-    const before = { role: row.role, active: row.active };
-    await row.update({ role: value.role, active: value.active }, { transaction });
-    return { result: true, data: { before, after: { role: value.role, active: value.active } } };
-  });
+  return changeStaffAccess(actor, value.id, { role: value.role, active: value.active });
 }

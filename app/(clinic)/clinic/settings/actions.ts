@@ -7,6 +7,7 @@ import { headers } from "next/headers";
 import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import * as settings from "@/lib/data/settings";
+import { endStaffSessions } from "@/lib/data/staff";
 import { AppError } from "@/lib/server/errors";
 import { clientIpFrom } from "@/lib/server/client-ip";
 
@@ -55,6 +56,9 @@ export async function saveBookingSettingsAction(input: unknown) {
 }
 export async function createStaffAction(input: unknown) {
   return asAdmin((a) => settings.createStaffAccount(a, input), "Staff account created. Give them the password in person.", "/clinic/settings/staff");
+}
+export async function endStaffSessionsAction(staffId: string) {
+  return asAdmin((a) => endStaffSessions(a, String(staffId)), "Their open sessions have ended; they must sign in again.", "/clinic/settings/staff");
 }
 export async function updateStaffAction(input: unknown) {
   return asAdmin((a) => settings.updateStaffAccount(a, input), "Staff account updated.", "/clinic/settings/staff");

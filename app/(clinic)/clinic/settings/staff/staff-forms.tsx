@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import { newStaffSchema, STAFF_ROLE_LABEL, staffUpdateSchema, type NewStaffInput, type StaffUpdateInput } from "@/lib/domain/settings-schemas";
-import { createStaffAction, updateStaffAction, type ActionState } from "../actions";
+import { createStaffAction, endStaffSessionsAction, updateStaffAction, type ActionState } from "../actions";
 import { fieldError, FormStatus } from "../form-status";
 
 type Person = { id: string; name: string; email: string; role: StaffUpdateInput["role"]; active: boolean };
@@ -23,6 +23,11 @@ export function StaffRowForm({ person, self }: { person: Person; self: boolean }
         </select>
         <label className="inline-flex min-h-11 items-center gap-2 text-sm"><input type="checkbox" className="h-5 w-5" {...register("active")} /> Can sign in<span className="sr-only"> ({person.name})</span></label>
         <button type="submit" className="btn-quiet" disabled={formState.isSubmitting}>Save<span className="sr-only"> {person.name}</span></button>
+        {self ? null : (
+          <button type="button" className="btn-quiet" onClick={async () => setState(await endStaffSessionsAction(person.id))}>
+            End sessions<span className="sr-only"> of {person.name}</span>
+          </button>
+        )}
       </div>
       <FormStatus state={state} />
     </form>
