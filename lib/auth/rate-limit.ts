@@ -7,12 +7,15 @@
 // once its free attempts are used (2, 4, 8 … seconds, capped); the same account across all IPs
 // gets delays only after many more failures and with a short cap, so a stranger can slow an
 // account down but never shut its owner out for long. Each IP has a hard ceiling per window.
+// Account delays are counted over a day, so waiting for the next window does not reset them.
 import "server-only";
 import { createHash } from "node:crypto";
 import { QueryTypes } from "sequelize";
 import { sequelize } from "@/db/sequelize";
 
+/** Window of the per-IP ceilings; delays per account are counted over a day. */
 export const WINDOW_MINUTES = 15;
+export const ACCOUNT_WINDOW_MINUTES = 24 * 60;
 /** Attempts for one account from one IP before delays start, and the longest delay (seconds). */
 export const FREE_PER_ACCOUNT_IP = 5;
 export const MAX_DELAY_ACCOUNT_IP = 15 * 60;
@@ -27,7 +30,7 @@ export const MAX_LINKS_PER_IP = 10;
 
 export type Throttle = { allowed: true } | { allowed: false; retryAfterSeconds: number; limit: string };
 
-type Rule = { key: string; limit: string; free?: number; cap?: number; hard?: number };
+type Rule = { key: string; limit: string; windowMinutes: number; free?: number; cap?: number; hard?: number };
 
 // E-mail addresses are hashed in the keys so the counters hold no personal data.
 const tag = (email: string) => createHash("sha256").update(email.trim().toLowerCase()).digest("hex").slice(0, 32);
@@ -39,26 +42,29 @@ export const keys = {
   linkIp: (ip: string) => `link-ip:${ip}`,
 };
 
-function windowStart(now: Date): Date {
-  const ms = WINDOW_MINUTES * 60_000;
+function windowStart(now: Date, minutes: number): Date {
+  const ms = minutes * 60_000;
   return new Date(Math.floor(now.getTime() / ms) * ms);
 }
 
-/** Counts one attempt against a rule; returns the new count, or null when the attempt must wait. */
+/** Counts one attempt against a rule, unless it must wait (then nothing is counted). */
 async function take(rule: Rule, now: Date): Promise<Throttle> {
+  const win = windowStart(now, rule.windowMinutes);
   const rows = await sequelize.query<{ count: number }>(
     `INSERT INTO sign_in_counters AS c (key, window_start, count, next_allowed_at)
-     VALUES (:key, :win, 1, :now)
+     VALUES (:key, :win, 1, :win)
      ON CONFLICT (key, window_start) DO UPDATE SET
        count = c.count + 1,
-       next_allowed_at = CAST(:now AS timestamptz) + make_interval(secs =>
-         CASE WHEN CAST(:free AS integer) IS NOT NULL AND c.count + 1 >= CAST(:free AS integer)
-              THEN least(power(2, c.count + 2 - CAST(:free AS integer)), CAST(:cap AS integer)) ELSE 0 END)
+       -- After the free attempts, the next one must wait 2, 4, 8 … seconds (capped).
+       next_allowed_at = CASE
+         WHEN CAST(:free AS integer) IS NOT NULL AND c.count + 1 >= CAST(:free AS integer)
+         THEN CAST(:now AS timestamptz) + make_interval(secs => least(power(2, c.count + 2 - CAST(:free AS integer)), CAST(:cap AS integer)))
+         ELSE c.next_allowed_at END
      WHERE c.next_allowed_at <= CAST(:now AS timestamptz)
        AND (CAST(:hard AS integer) IS NULL OR c.count < CAST(:hard AS integer))
      RETURNING count`,
     {
-      replacements: { key: rule.key, win: windowStart(now), now, free: rule.free ?? null, cap: rule.cap ?? null, hard: rule.hard ?? null },
+      replacements: { key: rule.key, win, now, free: rule.free ?? null, cap: rule.cap ?? null, hard: rule.hard ?? null },
       type: QueryTypes.SELECT,
     },
   );
@@ -66,9 +72,9 @@ async function take(rule: Rule, now: Date): Promise<Throttle> {
   const [row] = await sequelize.query<{ wait: number; count: number }>(
     `SELECT greatest(0, extract(epoch FROM next_allowed_at - CAST(:now AS timestamptz)))::float AS wait, count
        FROM sign_in_counters WHERE key = :key AND window_start = :win`,
-    { replacements: { key: rule.key, win: windowStart(now), now }, type: QueryTypes.SELECT },
+    { replacements: { key: rule.key, win, now }, type: QueryTypes.SELECT },
   );
-  const untilWindowEnds = (windowStart(now).getTime() + WINDOW_MINUTES * 60_000 - now.getTime()) / 1000;
+  const untilWindowEnds = (win.getTime() + rule.windowMinutes * 60_000 - now.getTime()) / 1000;
   const wait = rule.hard !== undefined && row && row.count >= rule.hard ? untilWindowEnds : (row?.wait ?? 1);
   return { allowed: false, retryAfterSeconds: Math.max(1, Math.ceil(wait)), limit: rule.limit };
 }
@@ -88,9 +94,9 @@ async function takeAll(rules: Rule[], now: Date): Promise<Throttle> {
 export function takeSignInAttempt(email: string, ip: string, now = new Date()): Promise<Throttle> {
   return takeAll(
     [
-      { key: keys.ip(ip), limit: "ip", hard: MAX_PER_IP },
-      { key: keys.accountIp(email, ip), limit: "account-ip", free: FREE_PER_ACCOUNT_IP, cap: MAX_DELAY_ACCOUNT_IP },
-      { key: keys.account(email), limit: "account", free: FREE_PER_ACCOUNT, cap: MAX_DELAY_ACCOUNT },
+      { key: keys.ip(ip), limit: "ip", windowMinutes: WINDOW_MINUTES, hard: MAX_PER_IP },
+      { key: keys.accountIp(email, ip), limit: "account-ip", windowMinutes: ACCOUNT_WINDOW_MINUTES, free: FREE_PER_ACCOUNT_IP, cap: MAX_DELAY_ACCOUNT_IP },
+      { key: keys.account(email), limit: "account", windowMinutes: ACCOUNT_WINDOW_MINUTES, free: FREE_PER_ACCOUNT, cap: MAX_DELAY_ACCOUNT },
     ],
     now,
   );
@@ -102,7 +108,7 @@ export async function signInSucceeded(email: string, ip: string, now = new Date(
     replacements: { keys: [keys.account(email), keys.accountIp(email, ip)] },
   });
   await sequelize.query(`UPDATE sign_in_counters SET count = greatest(count - 1, 0) WHERE key = :key AND window_start = :win`, {
-    replacements: { key: keys.ip(ip), win: windowStart(now) },
+    replacements: { key: keys.ip(ip), win: windowStart(now, WINDOW_MINUTES) },
   });
 }
 
@@ -110,16 +116,16 @@ export async function signInSucceeded(email: string, ip: string, now = new Date(
 export function takeSignInLink(email: string, ip: string, now = new Date()): Promise<Throttle> {
   return takeAll(
     [
-      { key: keys.linkIp(ip), limit: "link-ip", hard: MAX_LINKS_PER_IP },
-      { key: keys.linkEmail(email), limit: "link-email", hard: MAX_LINKS_PER_EMAIL },
+      { key: keys.linkIp(ip), limit: "link-ip", windowMinutes: WINDOW_MINUTES, hard: MAX_LINKS_PER_IP },
+      { key: keys.linkEmail(email), limit: "link-email", windowMinutes: WINDOW_MINUTES, hard: MAX_LINKS_PER_EMAIL },
     ],
     now,
   );
 }
 
-/** Drops counters of windows that ended a day ago (called now and then; they no longer matter). */
+/** Drops counters of windows that ended (they no longer matter); called after some sign-ins. */
 export async function pruneCounters(now = new Date()) {
   await sequelize.query(`DELETE FROM sign_in_counters WHERE window_start < :before`, {
-    replacements: { before: new Date(now.getTime() - 24 * 3600_000) },
+    replacements: { before: new Date(now.getTime() - 2 * ACCOUNT_WINDOW_MINUTES * 60_000) },
   });
 }

@@ -17,7 +17,7 @@ const ip = () => `198.51.100.${Math.floor(Math.random() * 250)}`;
 const email = () => `limit-${randomUUID()}@cuspal.test`;
 // The counters use fixed windows; tests start at the beginning of a far-off window so a window
 // boundary never falls inside one test, and so they do not meet each other's rows.
-const windowAt = (n: number) => new Date(Date.UTC(2031, 0, 1) + n * 15 * 60_000);
+const windowAt = (n: number) => new Date(Date.UTC(2031, 0, 1) + n * 24 * 3600_000);
 const later = (t: Date, seconds: number) => new Date(t.getTime() + seconds * 1000);
 let windowNo = Math.floor(Math.random() * 100_000);
 const freshWindow = () => windowAt(windowNo++);
