@@ -12,7 +12,7 @@ import { withDefaults } from "@/lib/domain/clinic-settings";
 import type { ToothClass } from "@/lib/domain/types";
 import {
   CLINIC_STAGE_KEYS, bookingSettingsSchema, closedDaySchema, equipmentSchema, materialModesSchema, newStaffSchema, openingHoursSchema,
-  stageDurationsSchema, staffUpdateSchema,
+  stageDurationsSchema, staffUpdateSchema, twoFactorRequirementSchema,
 } from "@/lib/domain/settings-schemas";
 import { recordAudit } from "@/lib/server/audit";
 import { changeStaffAccess } from "./staff";
@@ -226,4 +226,23 @@ export async function createStaffAccount(actor: Actor, input: unknown) {
 export async function updateStaffAccount(actor: Actor, input: unknown) {
   const value = staffUpdateSchema.parse(input);
   return changeStaffAccess(actor, value.id, { role: value.role, active: value.active });
+}
+
+/** Whether the clinic's staff must sign in with a one-time code as well as their password. */
+export async function getTwoFactorRequirement({ clinicId }: { clinicId: string }): Promise<boolean> {
+  const clinic = await Clinic.findByPk(clinicId, { attributes: ["requireTwoFactor"] });
+  if (!clinic) throw notFound("That clinic");
+  return clinic.requireTwoFactor;
+}
+
+/** Staff not yet enrolled are sent to enrolment on their next request once this is on. */
+export async function saveTwoFactorRequirement(actor: Actor, input: unknown) {
+  const clinicId = adminOf(actor);
+  const value = twoFactorRequirementSchema.parse(input);
+  return audited(actor, "settings.two_factor_requirement", { type: "clinic", id: clinicId }, async (transaction) => {
+    const clinic = (await Clinic.findByPk(clinicId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const before = clinic.requireTwoFactor;
+    await clinic.update({ requireTwoFactor: value.required }, { transaction });
+    return { result: value.required, data: { before, after: value.required } };
+  });
 }

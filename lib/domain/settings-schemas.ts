@@ -111,6 +111,10 @@ export type NewStaffInput = z.input<typeof newStaffSchema>;
 
 export const staffUpdateSchema = z.object({ id: z.string().min(1), role: staffRole, active: z.boolean() });
 
+/** The clinic's rule for staff sign-in. */
+export const twoFactorRequirementSchema = z.object({ required: z.boolean() });
+export type TwoFactorRequirementInput = z.infer<typeof twoFactorRequirementSchema>;
+
 /** `PATCH /api/staff/:id` and the settings form: change who can sign in and with which role. */
 export const staffAccessSchema = z
   .object({ active: z.boolean({ error: "active must be true or false." }).optional(), role: staffRole.optional() })

@@ -57,6 +57,9 @@ export async function saveBookingSettingsAction(input: unknown) {
 export async function createStaffAction(input: unknown) {
   return asAdmin((a) => settings.createStaffAccount(a, input), "Staff account created. Give them the password in person.", "/clinic/settings/staff");
 }
+export async function saveTwoFactorRequirementAction(input: unknown) {
+  return asAdmin((a) => settings.saveTwoFactorRequirement(a, input), "Sign-in rule saved.", "/clinic/settings/staff");
+}
 export async function endStaffSessionsAction(staffId: string) {
   return asAdmin((a) => endStaffSessions(a, String(staffId)), "Their open sessions have ended; they must sign in again.", "/clinic/settings/staff");
 }
