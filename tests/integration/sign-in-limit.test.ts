@@ -11,7 +11,7 @@ import {
   signInSucceeded, takeSignInAttempt, takeSignInLink,
 } from "@/lib/auth/rate-limit";
 import { SIGN_IN_FAILED, SIGN_IN_LOCKED } from "@/lib/auth/schemas";
-import { createTestClinic } from "../support/fixtures";
+import { createTestClinic, createTestPatient } from "../support/fixtures";
 
 const ip = () => `198.51.100.${Math.floor(Math.random() * 250)}`;
 const email = () => `limit-${randomUUID()}@cuspal.test`;
@@ -119,6 +119,19 @@ describe("credentials sign-in", () => {
     const user = await authorize({ email: t.staff.reception.email, password }, { headers: { "x-forwarded-for": "192.0.2.251" } });
     expect(user).toMatchObject({ id: t.staff.reception.id, role: "reception" });
     expect(await AuditEvent.count({ where: { subjectId: t.staff.reception.id, action: "auth.sign_in" } })).toBe(1);
+  });
+});
+
+describe("sign-in link requests", () => {
+  it("answer with the same neutral page once an address has asked too often", async () => {
+    const t = await createTestClinic();
+    const { user } = await createTestPatient(t.clinic.id);
+    const signInCallback = authOptionsFor(`192.0.2.${Math.floor(Math.random() * 250)}`).callbacks!.signIn!;
+    const ask = () => signInCallback({ user: { id: user.id, email: user.email }, account: { provider: "email", type: "email", providerAccountId: user.email }, email: { verificationRequest: true } } as never);
+    const answers = [];
+    for (let i = 0; i < MAX_LINKS_PER_EMAIL + 2; i++) answers.push(await ask());
+    expect(answers).toEqual([...Array(MAX_LINKS_PER_EMAIL).fill(true), "/sign-in/check-mail", "/sign-in/check-mail"]);
+    expect(await AuditEvent.count({ where: { subjectId: user.id, action: "auth.sign_in_link_throttled" } })).toBe(2);
   });
 });
 
