@@ -7,7 +7,8 @@ import { useForm } from "react-hook-form";
 import { enrolSchema, type EnrolInput } from "@/lib/auth/schemas";
 import { confirmEnrolmentAction, type EnrolState } from "./actions";
 
-export function EnrolForm() {
+/** The key (as a QR code and as text) and its first code; once confirmed, the recovery codes instead. */
+export function EnrolForm({ qrSvg, secret }: { qrSvg: string; secret: string }) {
   const [state, setState] = useState<EnrolState | null>(null);
   const { register, handleSubmit, formState } = useForm<EnrolInput>({ resolver: zodResolver(enrolSchema) });
   const error = formState.errors.code?.message ?? (state && !state.ok ? state.message : null);
@@ -28,13 +29,24 @@ export function EnrolForm() {
     );
   }
   return (
-    <form onSubmit={handleSubmit(async (v) => setState(await confirmEnrolmentAction(v)))} noValidate className="space-y-3">
-      <div>
-        <label htmlFor="enrol-code" className="field-label">Code from the app</label>
-        <input id="enrol-code" inputMode="numeric" autoComplete="one-time-code" className="field-input" aria-invalid={!!error} aria-describedby={error ? "enrol-code-e" : undefined} {...register("code")} />
-        {error ? <p id="enrol-code-e" role="alert" className="field-error">{error}</p> : null}
-      </div>
-      <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>Turn on two-factor sign-in</button>
-    </form>
+    <>
+      <ol className="list-decimal space-y-2 pl-5 text-sm">
+        <li>Open an authenticator app on your phone (any app for time-based codes).</li>
+        <li>Scan this picture with it, or type the key below.</li>
+        <li>Enter the 6-digit code the app then shows.</li>
+      </ol>
+      <div className="mx-auto w-56 max-w-full rounded-lg border border-line bg-white p-2" role="img" aria-label="QR code holding your two-factor key" dangerouslySetInnerHTML={{ __html: qrSvg }} />
+      <p className="text-sm">
+        Key: <code className="break-all font-mono" data-testid="totp-secret">{secret}</code>
+      </p>
+      <form onSubmit={handleSubmit(async (v) => setState(await confirmEnrolmentAction(v)))} noValidate className="space-y-3">
+        <div>
+          <label htmlFor="enrol-code" className="field-label">Code from the app</label>
+          <input id="enrol-code" inputMode="numeric" autoComplete="one-time-code" className="field-input" aria-invalid={!!error} aria-describedby={error ? "enrol-code-e" : undefined} {...register("code")} />
+          {error ? <p id="enrol-code-e" role="alert" className="field-error">{error}</p> : null}
+        </div>
+        <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>Turn on two-factor sign-in</button>
+      </form>
+    </>
   );
 }

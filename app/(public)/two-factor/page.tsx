@@ -32,22 +32,8 @@ export default async function TwoFactorPage() {
                 Your clinic asks staff to sign in with a code from their phone as well as their password. Set it up to continue.
               </p>
             ) : null}
-            <ol className="list-decimal space-y-2 pl-5 text-sm">
-              <li>Open an authenticator app on your phone (any app for time-based codes).</li>
-              <li>Scan this picture with it, or type the key below.</li>
-              <li>Enter the 6-digit code the app then shows.</li>
-            </ol>
-            <div
-              className="mx-auto w-56 max-w-full rounded-lg border border-line bg-white p-2"
-              role="img"
-              aria-label="QR code holding your two-factor key"
-              // The SVG is made on the server by the qrcode package from our own URI: no user input inside.
-              dangerouslySetInnerHTML={{ __html: qr }}
-            />
-            <p className="text-sm">
-              Key: <code className="break-all font-mono" data-testid="totp-secret">{enrolment.secret.replace(/(.{4})/g, "$1 ").trim()}</code>
-            </p>
-            <EnrolForm />
+            {/* The SVG is made on the server by the qrcode package from our own URI: no user input inside. */}
+            <EnrolForm qrSvg={qr} secret={enrolment.secret.replace(/(.{4})/g, "$1 ").trim()} />
           </>
         )}
         <div className="border-t border-line pt-3"><SignOutButton /></div>
