@@ -13,6 +13,8 @@ const schema = z.object({
   S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
   S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
   SEAL_CERT_PATH: z.string().optional(),
+  /** Proxies whose X-Forwarded-For hops are believed: comma-separated IPs or CIDRs (lib/server/client-ip.ts). */
+  TRUSTED_PROXIES: z.string().default(""),
   SEAL_CERT_PASSWORD: z.string().optional(),
 });
 
