@@ -12,12 +12,14 @@ const PASSWORD = "staff-password-2468";
 /** A fresh staff account (its own throttling counters), in the demo clinic unless another is named. */
 async function freshStaff(role = "reception", clinicId?: string) {
   const clinic = clinicId ?? (await query<{ id: string }>("SELECT id FROM clinics WHERE slug = 'alder-bay'"))[0].id;
-  const email = `e2e-${randomUUID().slice(0, 8)}@cuspal.test`;
+  const tag = randomUUID().slice(0, 8);
+  const email = `e2e-${tag}@cuspal.test`;
+  const name = `Test Staff ${tag}`;
   const [row] = await query<{ id: string }>(
     "INSERT INTO users (id, email, name, role, clinic_id, password_hash, active, created_at, updated_at) VALUES (gen_random_uuid(), $1, $2, $3, $4, $5, true, now(), now()) RETURNING id",
-    [email, "Test Staff Member", role, clinic, await bcrypt.hash(PASSWORD, 10)],
+    [email, name, role, clinic, await bcrypt.hash(PASSWORD, 10)],
   );
-  return { id: row.id, email };
+  return { id: row.id, email, name };
 }
 
 async function postCredentials(request: APIRequestContext, fields: Record<string, string>, headers: Record<string, string> = {}) {
@@ -138,4 +140,35 @@ test("a clinic that requires two-factor sends its staff to enrolment first", asy
   const api = await page.request.get("/api/staff");
   expect(api.status()).toBe(403);
   expect((await api.json()).error).toMatch(/two-factor/);
+});
+
+test("sign out on all devices, and the clinic manager ending a staff member's sessions", async ({ browser }) => {
+  const staff = await freshStaff("reception");
+  const desk = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const phone = await browser.newContext({ viewport: { width: 390, height: 844 } });
+  const [deskPage, phonePage] = [await desk.newPage(), await phone.newPage()];
+  await signIn(deskPage, staff.email, PASSWORD);
+  await signIn(phonePage, staff.email, PASSWORD);
+  await expect(deskPage).toHaveURL(/\/clinic$/);
+  await expect(phonePage).toHaveURL(/\/clinic$/);
+  await phonePage.getByText("Account", { exact: true }).click();
+  await phonePage.screenshot({ path: "test-results/account-menu-390.png" });
+  await phonePage.getByRole("button", { name: "Sign out on all devices" }).click();
+  await expect(phonePage).toHaveURL(/\/sign-in/);
+  expect((await deskPage.request.get("/api/staff")).status()).toBe(401);
+
+  // Signed in again on the desk; the manager ends that session from the staff page.
+  await signIn(deskPage, staff.email, PASSWORD);
+  await expect(deskPage).toHaveURL(/\/clinic$/);
+  const manager = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const managerPage = await manager.newPage();
+  await signIn(managerPage, "admin@cuspal.test");
+  await managerPage.goto("/clinic/settings/staff");
+  await managerPage.getByRole("button", { name: `End sessions of ${staff.name}` }).click();
+  await expect(managerPage.getByText("Their open sessions have ended")).toBeVisible();
+  await managerPage.screenshot({ path: "test-results/staff-settings-1280.png", fullPage: true });
+  expect((await deskPage.request.get("/api/staff")).status()).toBe(401);
+  const ended = await query<{ n: string }>("SELECT count(*) AS n FROM audit_events WHERE subject_id = $1 AND action = 'settings.staff_sessions_ended'", [staff.id]);
+  expect(Number(ended[0].n)).toBe(1);
+  await Promise.all([desk.close(), phone.close(), manager.close()]);
 });
