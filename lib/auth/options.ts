@@ -51,11 +51,14 @@ export function sessionProblem(token: JWT, state: Awaited<ReturnType<typeof acco
   return null;
 }
 
+// Our User model carries role and password hash beyond the adapter's own fields. Made once: the
+// adapter defines its other models on the connection.
+const adapter = SequelizeAdapter(sequelize, { models: { User: User as unknown as never }, synchronize: false });
+
 /** Options for one request; the client's IP is known for the sign-in link throttle. */
 export function authOptionsFor(ip = "unknown"): NextAuthOptions {
   return {
-    // Our User model carries role and password hash beyond the adapter's own fields.
-    adapter: SequelizeAdapter(sequelize, { models: { User: User as unknown as never }, synchronize: false }),
+    adapter,
     // Renewed on use; the absolute lifetime from sign-in (12 h staff, 30 days patients) is checked in `jwt`.
     session: { strategy: "jwt", maxAge: PATIENT_LIFETIME_SECONDS },
     pages: { signIn: "/sign-in", verifyRequest: "/sign-in/check-mail", error: "/sign-in" },
