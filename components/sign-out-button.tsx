@@ -1,11 +1,28 @@
 "use client";
 
 import { signOut } from "next-auth/react";
+import { signOutEverywhereAction } from "./account/sign-out-everywhere-action";
 
 export function SignOutButton() {
   return (
     <button type="button" className="btn-quiet min-h-10 px-3 text-sm" onClick={() => signOut({ callbackUrl: "/" })}>
       Sign out
+    </button>
+  );
+}
+
+/** In the header's account menu: ends the sessions on every device, then this one. */
+export function SignOutEverywhereButton() {
+  return (
+    <button
+      type="button"
+      className="btn-quiet min-h-10 w-full px-3 text-left text-sm"
+      onClick={async () => {
+        await signOutEverywhereAction();
+        await signOut({ callbackUrl: "/sign-in" });
+      }}
+    >
+      Sign out on all devices
     </button>
   );
 }

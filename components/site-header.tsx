@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { SessionUser } from "@/lib/auth/session";
 import { Brand } from "./brand";
-import { SignOutButton } from "./sign-out-button";
+import { SignOutButton, SignOutEverywhereButton } from "./sign-out-button";
 
 const ROLE_LABEL = { patient: "Patient", reception: "Reception", dentist: "Dentist", admin: "Clinic manager" } as const;
 
@@ -18,6 +18,15 @@ export function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: NavIte
             <span className="text-ink-muted">{ROLE_LABEL[user.role]}</span>
           </p>
           <SignOutButton />
+          <details className="relative">
+            <summary className="btn-quiet min-h-10 cursor-pointer list-none px-3 text-sm">Account</summary>
+            <div className="absolute right-0 z-10 mt-1 w-56 rounded-lg border border-line bg-white p-2 shadow-md">
+              {user.role !== "patient" ? (
+                <Link href="/two-factor" className="block min-h-10 rounded-md px-3 py-2 text-sm no-underline hover:bg-paper-deep">Two-factor sign-in</Link>
+              ) : null}
+              <SignOutEverywhereButton />
+            </div>
+          </details>
         </div>
       </div>
       {nav.length > 0 ? (

@@ -22,6 +22,8 @@ const base = z.object({
   S3_ACCESS_KEY_ID: z.string().default(FAKE_STORAGE_KEY),
   S3_SECRET_ACCESS_KEY: z.string().default(FAKE_STORAGE_KEY),
   SEAL_CERT_PATH: z.string().optional(),
+  /** Proxies whose X-Forwarded-For hops are believed: comma-separated IPs or CIDRs (lib/server/client-ip.ts). */
+  TRUSTED_PROXIES: z.string().default(""),
   SEAL_CERT_PASSWORD: z.string().optional(),
 });
 

@@ -40,7 +40,7 @@ Demo accounts (invented people), password: cuspal-demo
 Stop the app with Ctrl-C, then \`npm run stop\` stops PostgreSQL, the mail catcher, the storage fake and the worker.
 `);
 
-const app = spawn(bin("next"), ["start", "-p", String(appPort), "-H", "0.0.0.0"], { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "inherit" });
+const app = spawn(process.execPath, ["scripts/serve.mjs", "-p", String(appPort), "-H", "0.0.0.0"], { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "inherit" });
 const forward = (sig) => () => app.kill(sig);
 process.on("SIGINT", forward("SIGINT"));
 process.on("SIGTERM", forward("SIGTERM"));

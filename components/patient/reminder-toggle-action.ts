@@ -5,6 +5,7 @@ import { requireUser } from "@/lib/auth/session";
 import { setVisitReminders } from "@/lib/data/mail";
 import { AppError } from "@/lib/server/errors";
 import { reminderToggleSchema, type ReminderToggleResult } from "./reminder-toggle-schema";
+import { clientIpFrom } from "@/lib/server/client-ip";
 
 export async function setRemindersAction(input: unknown): Promise<ReminderToggleResult> {
   const parsed = reminderToggleSchema.safeParse(input);
@@ -16,7 +17,7 @@ export async function setRemindersAction(input: unknown): Promise<ReminderToggle
       user,
       appointmentId: parsed.data.appointmentId,
       enabled: parsed.data.enabled,
-      ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || null,
+      ip: clientIpFrom(h),
       userAgent: h.get("user-agent"),
     });
     return { ok: true, enabled: result.remindersEnabled };

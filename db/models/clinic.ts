@@ -19,6 +19,8 @@ export class Clinic extends Model<InferAttributes<Clinic>, InferCreationAttribut
   declare phone: string | null;
   declare currency: CreationOptional<string>;
   declare settings: CreationOptional<ClinicSettingsJson>;
+  /** Staff must sign in with a one-time code besides their password (on for a new clinic). */
+  declare requireTwoFactor: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -33,6 +35,7 @@ Clinic.init(
     phone: DataTypes.TEXT,
     currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: "CAD" },
     settings: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    requireTwoFactor: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

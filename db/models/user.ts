@@ -16,6 +16,12 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare role: CreationOptional<Role>;
   declare clinicId: string | null;
   declare active: CreationOptional<boolean>;
+  /** Bumped whenever access changes or the person signs out everywhere; sessions carry the value they began with. */
+  declare sessionVersion: CreationOptional<number>;
+  /** The two-factor secret, encrypted (lib/auth/two-factor.ts); null until enrolment starts. */
+  declare totpSecret: CreationOptional<string | null>;
+  declare totpEnabledAt: CreationOptional<Date | null>;
+  declare totpLastStep: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -38,6 +44,10 @@ User.init(
     role: { type: DataTypes.TEXT, allowNull: false, defaultValue: "patient" },
     clinicId: DataTypes.UUID,
     active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+    sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+    totpSecret: DataTypes.TEXT,
+    totpEnabledAt: DataTypes.DATE,
+    totpLastStep: { type: DataTypes.BIGINT, get() { const v = this.getDataValue("totpLastStep"); return v == null ? null : Number(v); } },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

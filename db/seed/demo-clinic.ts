@@ -36,6 +36,8 @@ export async function seedClinic(transaction: Transaction) {
       address: "14 Quayside Row, Alder Bay",
       phone: "+1 555 0134",
       currency: "CAD",
+      // The demo accounts sign in with their password alone.
+      requireTwoFactor: false,
       settings: { slotMinutes: 15, bufferMinutes: 10, minNoticeMinutes: 120, cancelCutoffHours: 24, reminderHoursBefore: [48, 2] },
     },
     { transaction },

@@ -12,9 +12,10 @@ import { withDefaults } from "@/lib/domain/clinic-settings";
 import type { ToothClass } from "@/lib/domain/types";
 import {
   CLINIC_STAGE_KEYS, bookingSettingsSchema, closedDaySchema, equipmentSchema, materialModesSchema, newStaffSchema, openingHoursSchema,
-  stageDurationsSchema, staffUpdateSchema,
+  stageDurationsSchema, staffUpdateSchema, twoFactorRequirementSchema,
 } from "@/lib/domain/settings-schemas";
 import { recordAudit } from "@/lib/server/audit";
+import { changeStaffAccess } from "./staff";
 import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
 
 export type Actor = { user: SessionUser; ip?: string; userAgent?: string };
@@ -221,19 +222,27 @@ export async function createStaffAccount(actor: Actor, input: unknown) {
   }
 }
 
+/** The settings form's save: the same change as `PATCH /api/staff/:id` (lib/data/staff.ts). */
 export async function updateStaffAccount(actor: Actor, input: unknown) {
-  const clinicId = adminOf(actor);
   const value = staffUpdateSchema.parse(input);
-  return audited(actor, "settings.staff_changed", { type: "user", id: value.id }, async (transaction) => {
-    const row = await User.findOne({ where: { id: value.id, clinicId, role: { [Op.in]: ["reception", "dentist", "admin"] } }, transaction, lock: transaction.LOCK.UPDATE });
-    if (!row) throw notFound("That staff account");
-    const losesAdmin = row.role === "admin" && (value.role !== "admin" || !value.active);
-    if (losesAdmin) {
-      const admins = await User.count({ where: { clinicId, role: "admin", active: true, id: { [Op.ne]: row.id } }, transaction });
-      if (admins === 0) throw new AppError(409, "The clinic needs at least one active clinic manager: make someone else manager first.", { field: "role" });
-    }
-    const before = { role: row.role, active: row.active };
-    await row.update({ role: value.role, active: value.active }, { transaction });
-    return { result: true, data: { before, after: { role: value.role, active: value.active } } };
+  return changeStaffAccess(actor, value.id, { role: value.role, active: value.active });
+}
+
+/** Whether the clinic's staff must sign in with a one-time code as well as their password. */
+export async function getTwoFactorRequirement({ clinicId }: { clinicId: string }): Promise<boolean> {
+  const clinic = await Clinic.findByPk(clinicId, { attributes: ["requireTwoFactor"] });
+  if (!clinic) throw notFound("That clinic");
+  return clinic.requireTwoFactor;
+}
+
+/** Staff not yet enrolled are sent to enrolment on their next request once this is on. */
+export async function saveTwoFactorRequirement(actor: Actor, input: unknown) {
+  const clinicId = adminOf(actor);
+  const value = twoFactorRequirementSchema.parse(input);
+  return audited(actor, "settings.two_factor_requirement", { type: "clinic", id: clinicId }, async (transaction) => {
+    const clinic = (await Clinic.findByPk(clinicId, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const before = clinic.requireTwoFactor;
+    await clinic.update({ requireTwoFactor: value.required }, { transaction });
+    return { result: value.required, data: { before, after: value.required } };
   });
 }

@@ -111,4 +111,15 @@ export const newStaffSchema = z.object({
 export type NewStaffInput = z.input<typeof newStaffSchema>;
 
 export const staffUpdateSchema = z.object({ id: idSchema("The staff account"), role: staffRole, active: z.boolean() });
+
+/** The clinic's rule for staff sign-in. */
+export const twoFactorRequirementSchema = z.object({ required: z.boolean() });
+export type TwoFactorRequirementInput = z.infer<typeof twoFactorRequirementSchema>;
+
+/** `PATCH /api/staff/:id` and the settings form: change who can sign in and with which role. */
+export const staffAccessSchema = z
+  .object({ active: z.boolean({ error: "active must be true or false." }).optional(), role: staffRole.optional() })
+  .strict()
+  .refine((v) => v.active !== undefined || v.role !== undefined, { message: "Send active, role or both." });
+export type StaffAccessInput = z.infer<typeof staffAccessSchema>;
 export type StaffUpdateInput = z.infer<typeof staffUpdateSchema>;

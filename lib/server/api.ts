@@ -5,6 +5,7 @@ import "server-only";
 import { NextResponse, type NextRequest } from "next/server";
 import { ZodError, type ZodType } from "zod";
 import { idSchema } from "@/lib/domain/input";
+import { clientIpFrom } from "./client-ip";
 import { fromDatabaseError } from "./db-errors";
 import { AppError, badRequest, forbidden } from "./errors";
 import { acceptsType, expectedTypeText, isOriginExempt, isSameOrigin, mediaType, MUTATING_METHODS, ownHosts, type BodyKind } from "./request-policy";
@@ -157,7 +158,6 @@ export async function idParams<P extends Record<string, string>>(params: Promise
 }
 
 export function clientInfo(req: Request): { ip: string; userAgent: string } {
-  const forwarded = req.headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return { ip: forwarded || req.headers.get("x-real-ip") || "unknown", userAgent: req.headers.get("user-agent") ?? "unknown" };
+  return { ip: clientIpFrom(req.headers), userAgent: req.headers.get("user-agent") ?? "unknown" };
 }
 

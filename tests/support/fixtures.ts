@@ -15,6 +15,7 @@ export async function createTestClinic(opts: {
   mills?: number;
   furnaces?: number;
   settings?: Record<string, unknown>;
+  requireTwoFactor?: boolean;
 } = {}) {
   const tag = randomUUID().slice(0, 8);
   const clinic = await Clinic.create({
@@ -23,6 +24,7 @@ export async function createTestClinic(opts: {
     timeZone: opts.timeZone ?? "America/Toronto",
     address: "1 Test Street",
     phone: null,
+    requireTwoFactor: opts.requireTwoFactor ?? false,
     settings: { slotMinutes: 15, bufferMinutes: 10, minNoticeMinutes: 120, cancelCutoffHours: 24, reminderHoursBefore: [48, 2], ...opts.settings },
   });
   await seedCatalogue(clinic.id);

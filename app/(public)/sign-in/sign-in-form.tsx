@@ -5,17 +5,24 @@ import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { signInSchema, type SignInInput, SIGN_IN_FAILED } from "@/lib/auth/schemas";
+import { CODE_NEEDED, signInSchema, type SignInInput, SIGN_IN_FAILED } from "@/lib/auth/schemas";
 
 export function SignInForm() {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+  // Staff who use two-factor sign-in get a second step after a correct password.
+  const [askCode, setAskCode] = useState(false);
+  const { register, handleSubmit, formState, setFocus } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
   const { errors, isSubmitting } = formState;
 
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
-    const result = await signIn("credentials", { ...values, redirect: false });
+    const result = await signIn("credentials", { email: values.email, password: values.password, ...(askCode && values.code ? { code: values.code } : {}), redirect: false });
+    if (result?.error === CODE_NEEDED) {
+      setAskCode(true);
+      setTimeout(() => setFocus("code"), 0);
+      return;
+    }
     if (!result || result.error) {
       setMessage(result?.error && result.error !== "CredentialsSignin" ? result.error : SIGN_IN_FAILED);
       return;
@@ -31,18 +38,25 @@ export function SignInForm() {
           {message}
         </p>
       ) : null}
-      <div>
+      <div className={askCode ? "hidden" : undefined}>
         <label htmlFor="email" className="field-label">E-mail</label>
         <input id="email" type="email" autoComplete="username" className="field-input" aria-invalid={!!errors.email} aria-describedby={errors.email ? "email-error" : undefined} {...register("email")} />
         {errors.email ? <p id="email-error" className="field-error">{errors.email.message}</p> : null}
       </div>
-      <div>
+      <div className={askCode ? "hidden" : undefined}>
         <label htmlFor="password" className="field-label">Password</label>
         <input id="password" type="password" autoComplete="current-password" className="field-input" aria-invalid={!!errors.password} aria-describedby={errors.password ? "password-error" : undefined} {...register("password")} />
         {errors.password ? <p id="password-error" className="field-error">{errors.password.message}</p> : null}
       </div>
+      {askCode ? (
+        <div>
+          <label htmlFor="code" className="field-label">Sign-in code</label>
+          <p id="code-hint" className="text-sm text-ink-soft">The 6-digit code your authenticator app shows now, or one of your recovery codes.</p>
+          <input id="code" inputMode="text" autoComplete="one-time-code" className="field-input" aria-describedby="code-hint" {...register("code")} />
+        </div>
+      ) : null}
       <button type="submit" className="btn-primary w-full" disabled={isSubmitting}>
-        {isSubmitting ? "Signing in…" : "Sign in"}
+        {isSubmitting ? "Signing in…" : askCode ? "Confirm code" : "Sign in"}
       </button>
     </form>
   );

@@ -7,6 +7,8 @@ import { headers } from "next/headers";
 import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import * as settings from "@/lib/data/settings";
+import { endStaffSessions } from "@/lib/data/staff";
+import { clientIpFrom } from "@/lib/server/client-ip";
 import { fromDatabaseError } from "@/lib/server/db-errors";
 import { AppError, badRequest } from "@/lib/server/errors";
 
@@ -16,7 +18,7 @@ async function asAdmin<T>(work: (actor: settings.Actor) => Promise<T>, done: str
   try {
     const user = await requireUser(["admin"]);
     const h = await headers();
-    const actor = { user, ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown", userAgent: h.get("user-agent") ?? "unknown" };
+    const actor = { user, ip: clientIpFrom(h), userAgent: h.get("user-agent") ?? "unknown" };
     await work(actor);
     revalidatePath(path);
     return { ok: true, message: done };
@@ -65,6 +67,12 @@ export async function saveBookingSettingsAction(input: unknown) {
 }
 export async function createStaffAction(input: unknown) {
   return asAdmin((a) => settings.createStaffAccount(a, input), "Staff account created. Give them the password in person.", "/clinic/settings/staff");
+}
+export async function saveTwoFactorRequirementAction(input: unknown) {
+  return asAdmin((a) => settings.saveTwoFactorRequirement(a, input), "Sign-in rule saved.", "/clinic/settings/staff");
+}
+export async function endStaffSessionsAction(staffId: string) {
+  return asAdmin((a) => endStaffSessions(a, String(staffId)), "Their open sessions have ended; they must sign in again.", "/clinic/settings/staff");
 }
 export async function updateStaffAction(input: unknown) {
   return asAdmin((a) => settings.updateStaffAccount(a, input), "Staff account updated.", "/clinic/settings/staff");

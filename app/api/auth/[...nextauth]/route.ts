@@ -1,5 +1,12 @@
 import NextAuth from "next-auth";
-import { authOptions } from "@/lib/auth/options";
+import type { NextRequest } from "next/server";
+import { authOptionsFor } from "@/lib/auth/options";
+import { clientIpFrom } from "@/lib/server/client-ip";
 
-const handler = NextAuth(authOptions);
+type Ctx = { params: Promise<{ nextauth: string[] }> };
+
+// Options per request, so the sign-in link throttle knows the client's IP.
+async function handler(req: NextRequest, ctx: Ctx) {
+  return NextAuth(req, ctx as never, authOptionsFor(clientIpFrom(req.headers)));
+}
 export { handler as GET, handler as POST };

@@ -5,6 +5,7 @@ import { requireUser } from "@/lib/auth/session";
 import { publishTemplateVersion, type PublishResult } from "@/lib/data/consents";
 import { fromDatabaseError } from "@/lib/server/db-errors";
 import { AppError } from "@/lib/server/errors";
+import { clientIpFrom } from "@/lib/server/client-ip";
 
 /** Publishes the edited consent text as a new version (clinic manager only). */
 export async function publishTemplate(values: unknown): Promise<PublishResult> {
@@ -14,7 +15,7 @@ export async function publishTemplate(values: unknown): Promise<PublishResult> {
     return await publishTemplateVersion({
       user,
       values,
-      ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown",
+      ip: clientIpFrom(h),
       userAgent: h.get("user-agent") ?? "unknown",
     });
   } catch (err) {

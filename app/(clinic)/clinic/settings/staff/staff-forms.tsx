@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import { newStaffSchema, STAFF_ROLE_LABEL, staffUpdateSchema, type NewStaffInput, type StaffUpdateInput } from "@/lib/domain/settings-schemas";
-import { createStaffAction, updateStaffAction, type ActionState } from "../actions";
+import { createStaffAction, endStaffSessionsAction, saveTwoFactorRequirementAction, updateStaffAction, type ActionState } from "../actions";
 import { fieldError, FormStatus } from "../form-status";
 
 type Person = { id: string; name: string; email: string; role: StaffUpdateInput["role"]; active: boolean };
@@ -23,6 +23,11 @@ export function StaffRowForm({ person, self }: { person: Person; self: boolean }
         </select>
         <label className="inline-flex min-h-11 items-center gap-2 text-sm"><input type="checkbox" className="h-5 w-5" {...register("active")} /> Can sign in<span className="sr-only"> ({person.name})</span></label>
         <button type="submit" className="btn-quiet" disabled={formState.isSubmitting}>Save<span className="sr-only"> {person.name}</span></button>
+        {self ? null : (
+          <button type="button" className="btn-quiet" onClick={async () => setState(await endStaffSessionsAction(person.id))}>
+            End sessions<span className="sr-only"> of {person.name}</span>
+          </button>
+        )}
       </div>
       <FormStatus state={state} />
     </form>
@@ -61,6 +66,28 @@ export function NewStaffForm() {
       </div>
       {field("password", "First password (at least 12 characters)", "password", "new-password")}
       <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>Create account</button>
+    </form>
+  );
+}
+
+export function TwoFactorRequirementForm({ required }: { required: boolean }) {
+  const [state, setState] = useState<ActionState | null>(null);
+  const [checked, setChecked] = useState(required);
+  return (
+    <form
+      onSubmit={async (e) => {
+        e.preventDefault();
+        setState(await saveTwoFactorRequirementAction({ required: checked }));
+      }}
+      className="space-y-2"
+    >
+      <label className="inline-flex min-h-11 items-center gap-2">
+        <input type="checkbox" className="h-5 w-5" checked={checked} onChange={(e) => setChecked(e.target.checked)} />
+        Staff sign in with a code from their phone as well as their password
+      </label>
+      <p className="text-sm text-ink-muted">Staff who have not set it up yet are asked to on their next visit. Patients are not affected.</p>
+      <button type="submit" className="btn-quiet">Save sign-in rule</button>
+      <FormStatus state={state} />
     </form>
   );
 }

@@ -10,6 +10,7 @@ import { openConsentForPatient } from "@/lib/data/consents";
 import { when } from "@/lib/format";
 import { ConsentFlow } from "./consent-flow";
 import { WithdrawConsent } from "./withdraw-consent";
+import { clientIpFrom } from "@/lib/server/client-ip";
 
 export const metadata: Metadata = { title: "Consent for your crown" };
 
@@ -20,7 +21,7 @@ export default async function PatientConsentPage({ params }: { params: Promise<{
   const view = await openConsentForPatient({
     user,
     appointmentId: id,
-    ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown",
+    ip: clientIpFrom(h),
     userAgent: h.get("user-agent") ?? "unknown",
   });
   if (!view) notFound();
