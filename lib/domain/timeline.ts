@@ -185,15 +185,15 @@ export function estimateTimeline(input: TimelineInput): Timeline {
   return { stages, totalMinutes: at, chairFreeAtMin };
 }
 
-/** A visit length as a patient reads it: the estimate rounded out to quarter hours, as a range. */
-export function visitLengthRange(totalMinutes: number): { fromMinutes: number; toMinutes: number; text: string } {
+/** A visit length as a patient reads it: the estimate (or the span of several) rounded out to quarter hours, as a range. */
+export function visitLengthRange(totalMinutes: number, longestMinutes = totalMinutes): { fromMinutes: number; toMinutes: number; text: string } {
   const fromMinutes = Math.max(15, Math.floor(totalMinutes / 15) * 15);
-  const toMinutes = Math.ceil((totalMinutes + 15) / 15) * 15;
+  const toMinutes = Math.ceil((Math.max(totalMinutes, longestMinutes) + 15) / 15) * 15;
   const hours = (m: number) => {
     const h = Math.floor(m / 60);
     const r = m % 60;
-    if (h === 0) return `${r} minutes`;
-    return r === 0 ? `${h} hour${h === 1 ? "" : "s"}` : `${h} h ${String(r).padStart(2, "0")} min`;
+    if (h === 0) return `${r} min`;
+    return r === 0 ? `${h} h` : `${h} h ${r} min`;
   };
   return { fromMinutes, toMinutes, text: `about ${hours(fromMinutes)} to ${hours(toMinutes)}` };
 }

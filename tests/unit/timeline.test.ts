@@ -175,7 +175,8 @@ describe("visit timeline estimator", () => {
 
   it("gives the patient a rounded range around the estimate, never shorter than the estimate's quarter hour", () => {
     expect(visitLengthRange(172)).toEqual({ fromMinutes: 165, toMinutes: 195, text: "about 2 h 45 min to 3 h 15 min" });
-    expect(visitLengthRange(120).text).toBe("about 2 hours to 2 h 15 min");
+    expect(visitLengthRange(120).text).toBe("about 2 h to 2 h 15 min");
+    expect(visitLengthRange(50).text).toBe("about 45 min to 1 h 15 min");
     fc.assert(fc.property(fc.integer({ min: 1, max: 600 }), (m) => {
       const r = visitLengthRange(m);
       expect(r.fromMinutes).toBeLessThanOrEqual(Math.max(m, 15));
