@@ -1,6 +1,8 @@
 // Data access for the clinic's material catalogue.
 import "server-only";
-import { Material, MaterialMode } from "@/db/models";
+import { Material, MaterialMode, StageDuration } from "@/db/models";
+import { estimateTimeline, TimelineError } from "@/lib/domain/timeline";
+import { TOOTH_CLASSES, type Mode, type ToothClass } from "@/lib/domain/types";
 
 export async function listMaterials({ clinicId, activeOnly = true }: { clinicId: string; activeOnly?: boolean }) {
   const rows = await Material.findAll({
@@ -25,8 +27,34 @@ export async function listMaterials({ clinicId, activeOnly = true }: { clinicId:
     modes: (m.modes ?? [])
       .slice()
       .sort((a, b) => ["rapid", "standard", "refined"].indexOf(a.mode) - ["rapid", "standard", "refined"].indexOf(b.mode))
-      .map((x) => ({ mode: x.mode, fabricationMinutes: x.fabricationMinutes, heatTreatmentMinutes: x.heatTreatmentMinutes, finishing: x.finishing, finishingMinutes: x.finishingMinutes })),
+      .map((x) => ({ mode: x.mode, fabricationMinutes: x.fabricationMinutes, heatTreatmentMinutes: x.heatTreatmentMinutes, finishing: x.finishing, finishingMinutes: x.finishingMinutes, glazeFiringMinutes: x.glazeFiringMinutes })),
   }));
 }
 
 export type MaterialView = Awaited<ReturnType<typeof listMaterials>>[number];
+
+/** Estimated visit minutes per material, mode and tooth class (null where the plan cannot be made). */
+export async function materialEstimates({ clinicId }: { clinicId: string }): Promise<Record<string, Partial<Record<Mode, Record<ToothClass, number | null>>>>> {
+  const [materials, rows] = await Promise.all([
+    Material.findAll({ where: { clinicId, active: true }, include: [{ model: MaterialMode, as: "modes" }] }),
+    StageDuration.findAll({ where: { clinicId } }),
+  ]);
+  const stageMinutes = rows.map((r) => ({ stage: r.stage, toothClass: r.toothClass, minutes: r.minutes }));
+  const out: Record<string, Partial<Record<Mode, Record<ToothClass, number | null>>>> = {};
+  for (const m of materials) {
+    out[m.id] = {};
+    for (const mode of m.modes ?? []) {
+      const byClass = {} as Record<ToothClass, number | null>;
+      for (const toothClass of TOOTH_CLASSES) {
+        try {
+          byClass[toothClass] = estimateTimeline({ material: m, mode, toothClass, stageMinutes }).totalMinutes;
+        } catch (err) {
+          if (!(err instanceof TimelineError)) throw err;
+          byClass[toothClass] = null;
+        }
+      }
+      out[m.id][mode.mode] = byClass;
+    }
+  }
+  return out;
+}

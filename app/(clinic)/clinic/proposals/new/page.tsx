@@ -1,17 +1,18 @@
 import type { Metadata } from "next";
 import { Patient, User } from "@/db/models";
 import { requirePageUser } from "@/lib/auth/session";
-import { listMaterials } from "@/lib/data/materials";
+import { listMaterials, materialEstimates } from "@/lib/data/materials";
 import { ProposalForm } from "./proposal-form";
 
 export const metadata: Metadata = { title: "New crown proposal" };
 
 export default async function NewProposalPage() {
   const user = await requirePageUser(["dentist", "admin"]);
-  const [patients, materials, dentists] = await Promise.all([
+  const [patients, materials, dentists, estimates] = await Promise.all([
     Patient.findAll({ where: { clinicId: user.clinicId! }, include: [{ model: User, as: "user", attributes: ["name", "email"] }] }),
     listMaterials({ clinicId: user.clinicId! }),
     User.findAll({ where: { clinicId: user.clinicId!, role: "dentist", active: true }, attributes: ["id", "name"] }),
+    materialEstimates({ clinicId: user.clinicId! }),
   ]);
   return (
     <div className="mx-auto max-w-read space-y-4">
@@ -21,7 +22,10 @@ export default async function NewProposalPage() {
         role={user.role}
         patients={patients.map((p) => ({ id: p.id, name: p.user?.name ?? p.user?.email ?? "Patient" })).sort((a, b) => a.name.localeCompare(b.name))}
         dentists={dentists.map((d) => ({ id: d.id, name: d.name ?? "Dentist" }))}
-        materials={materials.map((m) => ({ id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode) }))}
+        materials={materials.map((m) => ({
+          id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode),
+          cautions: m.cautions, provisionalOnly: m.indications.provisionalOnly, minutes: estimates[m.id] ?? {},
+        }))}
       />
     </div>
   );

@@ -7,8 +7,9 @@ import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { proposalSchema } from "@/lib/booking/schemas";
 import { describeTooth, isValidFdi } from "@/lib/domain/tooth";
-import type { Mode } from "@/lib/domain/types";
-import { MODE_WORDS } from "@/lib/format";
+import { visitLengthRange } from "@/lib/domain/timeline";
+import type { Mode, ToothClass } from "@/lib/domain/types";
+import { duration, MODE_WORDS } from "@/lib/format";
 
 type Input = z.input<typeof proposalSchema>;
 type Output = z.output<typeof proposalSchema>;
@@ -16,7 +17,16 @@ type Props = {
   role: string;
   patients: { id: string; name: string }[];
   dentists: { id: string; name: string }[];
-  materials: { id: string; name: string; toothClasses: string[]; modes: Mode[] }[];
+  materials: {
+    id: string;
+    name: string;
+    toothClasses: string[];
+    modes: Mode[];
+    cautions: string[];
+    provisionalOnly: boolean;
+    /** Estimated visit minutes per mode and tooth class. */
+    minutes: Partial<Record<Mode, Record<ToothClass, number | null>>>;
+  }[];
 };
 
 export function ProposalForm({ role, patients, dentists, materials }: Props) {
@@ -86,9 +96,22 @@ export function ProposalForm({ role, patients, dentists, materials }: Props) {
                     <label key={mode} className="inline-flex min-h-10 items-center gap-2 text-sm">
                       <input type="checkbox" className="size-5 accent-harbour-600" disabled={!indicated} checked={allowed[m.id]?.includes(mode) ?? false} onChange={(e) => toggle(m.id, mode, e.target.checked)} />
                       {MODE_WORDS[mode].name}
+                      {toothInfo && indicated ? (
+                        <span className="text-ink-muted" data-testid={`estimate-${m.id}-${mode}`}>
+                          {m.minutes[mode]?.[toothInfo.toothClass] ? `· ${duration(m.minutes[mode]![toothInfo.toothClass]!)} (patient reads ${visitLengthRange(m.minutes[mode]![toothInfo.toothClass]!).text})` : "· no estimate: check the material's minutes"}
+                        </span>
+                      ) : null}
                     </label>
                   ))}
                 </div>
+                {!toothInfo ? <p className="mt-1 text-xs text-ink-muted">Enter the tooth to see the estimated visit length.</p> : null}
+                {m.provisionalOnly ? <p className="mt-1 text-sm font-semibold text-clay-700">Provisional material: a final crown is still needed.</p> : null}
+                {m.cautions.length ? (
+                  <div className="mt-1 text-sm">
+                    <p className="font-semibold text-clay-700">Cautions</p>
+                    <ul className="list-disc pl-5 text-ink-soft" data-testid={`cautions-${m.id}`}>{m.cautions.map((c) => <li key={c}>{c}</li>)}</ul>
+                  </div>
+                ) : null}
               </div>
             );
           })}
