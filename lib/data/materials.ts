@@ -1,7 +1,8 @@
 // Data access for the clinic's material catalogue.
 import "server-only";
-import { Material, MaterialMode, StageDuration } from "@/db/models";
-import { estimateTimeline, TimelineError } from "@/lib/domain/timeline";
+import { Equipment, FurnaceProgramme, Material, MaterialMode, StageDuration } from "@/db/models";
+import { capableFurnaces, ProgrammeUnavailable, withProgrammeMinutes } from "@/lib/domain/furnace-programmes";
+import { estimateTimeline, stagesFor, TimelineError } from "@/lib/domain/timeline";
 import { TOOTH_CLASSES, type Mode, type ToothClass } from "@/lib/domain/types";
 
 export async function listMaterials({ clinicId, activeOnly = true }: { clinicId: string; activeOnly?: boolean }) {
@@ -33,27 +34,35 @@ export async function listMaterials({ clinicId, activeOnly = true }: { clinicId:
 
 export type MaterialView = Awaited<ReturnType<typeof listMaterials>>[number];
 
-/** Estimated visit minutes per material, mode and tooth class (null where the plan cannot be made). */
-export async function materialEstimates({ clinicId }: { clinicId: string }): Promise<Record<string, Partial<Record<Mode, Record<ToothClass, number | null>>>>> {
-  const [materials, rows] = await Promise.all([
+export type ModeEstimate = { minutes: Record<ToothClass, number | null>; problem: string | null };
+
+/** Estimated visit minutes per material, mode and tooth class, with the furnace programmes applied;
+ *  `problem` says why a mode cannot be planned (then it is not offered). */
+export async function materialEstimates({ clinicId }: { clinicId: string }): Promise<Record<string, Partial<Record<Mode, ModeEstimate>>>> {
+  const [materials, rows, programmes, furnaces] = await Promise.all([
     Material.findAll({ where: { clinicId, active: true }, include: [{ model: MaterialMode, as: "modes" }] }),
     StageDuration.findAll({ where: { clinicId } }),
+    FurnaceProgramme.findAll({ where: { clinicId } }),
+    Equipment.findAll({ where: { clinicId, kind: "furnace", active: true } }),
   ]);
   const stageMinutes = rows.map((r) => ({ stage: r.stage, toothClass: r.toothClass, minutes: r.minutes }));
-  const out: Record<string, Partial<Record<Mode, Record<ToothClass, number | null>>>> = {};
+  const programme = (id: string | null) => programmes.find((p) => p.id === id) ?? null;
+  const out: Record<string, Partial<Record<Mode, ModeEstimate>>> = {};
   for (const m of materials) {
     out[m.id] = {};
-    for (const mode of m.modes ?? []) {
-      const byClass = {} as Record<ToothClass, number | null>;
-      for (const toothClass of TOOTH_CLASSES) {
-        try {
-          byClass[toothClass] = estimateTimeline({ material: m, mode, toothClass, stageMinutes }).totalMinutes;
-        } catch (err) {
-          if (!(err instanceof TimelineError)) throw err;
-          byClass[toothClass] = null;
-        }
+    for (const row of m.modes ?? []) {
+      const choice = { heat: m.heatTreatment === "none" ? null : programme(row.heatProgrammeId), glaze: row.finishing === "stain_glaze" ? programme(row.glazeProgrammeId) : null };
+      const mode = withProgrammeMinutes(row.get({ plain: true }), choice);
+      const estimate: ModeEstimate = { minutes: { anterior: null, premolar: null, molar: null }, problem: null };
+      try {
+        for (const toothClass of TOOTH_CLASSES) estimate.minutes[toothClass] = estimateTimeline({ material: m, mode, toothClass, stageMinutes }).totalMinutes;
+        const keys = new Set(stagesFor(m, mode));
+        capableFurnaces(furnaces.map((f) => f.id), [keys.has("heat_treatment") ? choice.heat : null, keys.has("glaze_firing") ? choice.glaze : null]);
+      } catch (err) {
+        if (!(err instanceof TimelineError) && !(err instanceof ProgrammeUnavailable)) throw err;
+        estimate.problem = err.message;
       }
-      out[m.id][mode.mode] = byClass;
+      out[m.id][row.mode] = estimate;
     }
   }
   return out;

@@ -24,7 +24,7 @@ export default async function NewProposalPage() {
         dentists={dentists.map((d) => ({ id: d.id, name: d.name ?? "Dentist" }))}
         materials={materials.map((m) => ({
           id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode),
-          cautions: m.cautions, provisionalOnly: m.indications.provisionalOnly, minutes: estimates[m.id] ?? {},
+          cautions: m.cautions, provisionalOnly: m.indications.provisionalOnly, estimates: estimates[m.id] ?? {},
         }))}
       />
     </div>

@@ -25,7 +25,7 @@ type Props = {
     cautions: string[];
     provisionalOnly: boolean;
     /** Estimated visit minutes per mode and tooth class. */
-    minutes: Partial<Record<Mode, Record<ToothClass, number | null>>>;
+    estimates: Partial<Record<Mode, { minutes: Record<ToothClass, number | null>; problem: string | null }>>;
   }[];
 };
 
@@ -92,17 +92,21 @@ export function ProposalForm({ role, patients, dentists, materials }: Props) {
               <div key={m.id} className={`rounded-lg border border-line p-3 ${indicated ? "" : "opacity-60"}`}>
                 <p className="font-semibold">{m.name}{indicated ? "" : ` — not indicated for a ${toothInfo!.toothClass} tooth`}</p>
                 <div className="mt-1 flex flex-wrap gap-3">
-                  {m.modes.map((mode) => (
-                    <label key={mode} className="inline-flex min-h-10 items-center gap-2 text-sm">
-                      <input type="checkbox" className="size-5 accent-harbour-600" disabled={!indicated} checked={allowed[m.id]?.includes(mode) ?? false} onChange={(e) => toggle(m.id, mode, e.target.checked)} />
-                      {MODE_WORDS[mode].name}
-                      {toothInfo && indicated ? (
-                        <span className="text-ink-muted" data-testid={`estimate-${m.id}-${mode}`}>
-                          {m.minutes[mode]?.[toothInfo.toothClass] ? `· ${duration(m.minutes[mode]![toothInfo.toothClass]!)} (patient reads ${visitLengthRange(m.minutes[mode]![toothInfo.toothClass]!).text})` : "· no estimate: check the material's minutes"}
-                        </span>
-                      ) : null}
-                    </label>
-                  ))}
+                  {m.modes.map((mode) => {
+                    const estimate = m.estimates[mode];
+                    const minutes = toothInfo ? estimate?.minutes[toothInfo.toothClass] ?? null : null;
+                    const unavailable = estimate?.problem ?? null;
+                    return (
+                      <label key={mode} className="inline-flex min-h-10 flex-wrap items-center gap-2 text-sm">
+                        <input type="checkbox" className="size-5 accent-harbour-600" disabled={!indicated || !!unavailable} checked={allowed[m.id]?.includes(mode) ?? false} onChange={(e) => toggle(m.id, mode, e.target.checked)} />
+                        {MODE_WORDS[mode].name}
+                        {unavailable ? <span className="text-clay-700">· not offered: {unavailable}</span>
+                          : toothInfo && indicated && minutes ? (
+                            <span className="text-ink-muted" data-testid={`estimate-${m.id}-${mode}`}>· visit {duration(minutes)} (the patient reads {visitLengthRange(minutes).text})</span>
+                          ) : null}
+                      </label>
+                    );
+                  })}
                 </div>
                 {!toothInfo ? <p className="mt-1 text-xs text-ink-muted">Enter the tooth to see the estimated visit length.</p> : null}
                 {m.provisionalOnly ? <p className="mt-1 text-sm font-semibold text-clay-700">Provisional material: a final crown is still needed.</p> : null}
