@@ -170,7 +170,7 @@ export async function stageTimeStats({ clinicId, since }: { clinicId: string; si
     .map((s) => {
       const m = byId.get(s.materialId);
       const modeRow = m?.modes?.find((x) => x.mode === s.mode);
-      const current = s.stage === "fabrication" ? modeRow?.fabricationMinutes : s.stage === "heat_treatment" ? modeRow?.heatTreatmentMinutes : s.stage === "finishing" ? modeRow?.finishingMinutes : general.get(s.stage);
+      const current = s.stage === "fabrication" ? modeRow?.fabricationMinutes : s.stage === "heat_treatment" ? modeRow?.heatTreatmentMinutes : s.stage === "finishing" ? modeRow?.finishingMinutes : s.stage === "glaze_firing" ? modeRow?.glazeFiringMinutes : general.get(s.stage);
       return { ...s, material: m?.name ?? "Unknown material", currentMinutes: current ?? null };
     })
     .sort((a, b) => a.material.localeCompare(b.material) || a.mode.localeCompare(b.mode) || STAGE_KEYS.indexOf(a.stage) - STAGE_KEYS.indexOf(b.stage));

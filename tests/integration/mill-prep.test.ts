@@ -5,6 +5,7 @@ import { Appointment, AuditEvent } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { bookVisit } from "@/lib/booking/book";
 import { confirmVisit } from "@/lib/booking/transitions";
+import { loadBoard } from "@/lib/data/board";
 import { recordLot } from "@/lib/data/lots";
 import { loadMillPrep, markBlockLoaded, recordVisitBlock } from "@/lib/data/mill-prep";
 import { AppError } from "@/lib/server/errors";
@@ -52,6 +53,11 @@ describe("mill preparation", () => {
     expect(items[0]).toMatchObject({ shade: "A3.5", blockSize: "14L", state: "loaded", lots: ["PREP-7"], loadFrom: null, loadBy: new Date("2027-03-10T14:10:00Z").getTime() });
     expect(items[1]).toMatchObject({ shade: null, state: "due", missing: ["shade", "block size"], loadFrom: new Date("2027-03-10T14:22:00Z").getTime() });
     expect(await AuditEvent.count({ where: { subjectId: first.id, action: "visit.block_loaded" } })).toBe(1);
+    // The day board carries the mark and the shade.
+    const board = await loadBoard({ clinicId: t.clinic.id, day: "2027-03-10", now: new Date("2027-03-10T14:05:00Z") });
+    expect(board.visits.find((v) => v.id === first.id)!.block).toMatchObject({ shade: "A3.5", size: "14L" });
+    expect(board.visits.find((v) => v.id === first.id)!.block.loadedAt).not.toBeNull();
+    expect(board.visits.find((v) => v.id === second.id)!.block.loadedAt).toBeNull();
     expect(await AuditEvent.count({ where: { subjectId: first.id, action: "visit.block_planned" } })).toBe(1);
   });
 
