@@ -24,6 +24,11 @@ export class Appointment extends Model<InferAttributes<Appointment>, InferCreati
   declare feeCents: number;
   declare statusReason: CreationOptional<string | null>;
   declare remindersEnabled: CreationOptional<boolean>;
+  /** VITA classical shade and block size recorded by the dentist; when the block went into the mill. */
+  declare shade: CreationOptional<string | null>;
+  declare blockSize: CreationOptional<string | null>;
+  declare blockLoadedAt: CreationOptional<Date | null>;
+  declare blockLoadedBy: CreationOptional<string | null>;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -52,6 +57,10 @@ Appointment.init(
     feeCents: { type: DataTypes.INTEGER, allowNull: false },
     statusReason: DataTypes.TEXT,
     remindersEnabled: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+    shade: DataTypes.TEXT,
+    blockSize: DataTypes.TEXT,
+    blockLoadedAt: DataTypes.DATE,
+    blockLoadedBy: DataTypes.UUID,
     createdBy: DataTypes.UUID,
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -65,6 +65,9 @@ export class Consent extends Model<InferAttributes<Consent>, InferCreationAttrib
   declare withdrawnAt: CreationOptional<Date | null>;
   declare withdrawnBy: CreationOptional<string | null>;
   declare withdrawnReason: CreationOptional<string | null>;
+  /** How the withdrawal reached the clinic, and who made it when staff record it for the patient. */
+  declare withdrawnVia: CreationOptional<"online" | "phone" | "in_person" | "in_writing" | null>;
+  declare withdrawnByName: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare appointment?: NonAttribute<Appointment>;
@@ -99,6 +102,8 @@ Consent.init(
     withdrawnAt: DataTypes.DATE,
     withdrawnBy: DataTypes.UUID,
     withdrawnReason: DataTypes.TEXT,
+    withdrawnVia: DataTypes.TEXT,
+    withdrawnByName: DataTypes.TEXT,
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

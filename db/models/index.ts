@@ -10,7 +10,7 @@ import { registerConsentGuard } from "./consent-guard";
 import { PatientDocument } from "./document";
 import { Equipment, EquipmentOutage } from "./equipment";
 import { MailAttempt, MailOutbox } from "./mail";
-import { Material, MaterialMode, StageDuration } from "./material";
+import { FurnaceProgramme, Material, MaterialMode, StageDuration } from "./material";
 import { Patient } from "./patient";
 import { Proposal, ProposalMaterial } from "./proposal";
 import { SignInAttempt } from "./sign-in-attempt";
@@ -70,5 +70,5 @@ if (!Object.hasOwn(User.associations, "patient")) {
 export {
   sequelize, Appointment, AppointmentStage, AuditEvent, BlockLot, Clinic, ClosedDay, Consent, ConsentPdf, ConsentTemplate, Equipment, EquipmentOutage,
   Material, MaterialMode, OpeningHour, Patient, PatientDocument, Proposal, ProposalMaterial, Reservation, SignInAttempt,
-  StageDuration, User, MailOutbox, MailAttempt,
+  StageDuration, User, MailOutbox, MailAttempt, FurnaceProgramme,
 };

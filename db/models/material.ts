@@ -19,6 +19,8 @@ export class Material extends Model<InferAttributes<Material>, InferCreationAttr
   declare pros: string[];
   declare cautions: string[];
   declare provisionalOnly: CreationOptional<boolean>;
+  /** The visit's stages in order (see lib/domain/timeline.ts `checkStageOrder`). */
+  declare stageOrder: CreationOptional<string[]>;
   declare active: CreationOptional<boolean>;
   declare sortOrder: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -49,6 +51,7 @@ Material.init(
     pros: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
     cautions: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
     provisionalOnly: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    stageOrder: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
     active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
     sortOrder: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     createdAt: DataTypes.DATE,
@@ -66,6 +69,10 @@ export class MaterialMode extends Model<InferAttributes<MaterialMode>, InferCrea
   declare heatTreatmentMinutes: number;
   declare finishing: FinishingKind;
   declare finishingMinutes: number;
+  declare glazeFiringMinutes: CreationOptional<number>;
+  /** Furnace programmes for the heat treatment and the separate glaze firing; null: any furnace. */
+  declare heatProgrammeId: CreationOptional<string | null>;
+  declare glazeProgrammeId: CreationOptional<string | null>;
 }
 
 MaterialMode.init(
@@ -77,6 +84,9 @@ MaterialMode.init(
     heatTreatmentMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     finishing: { type: DataTypes.TEXT, allowNull: false },
     finishingMinutes: { type: DataTypes.INTEGER, allowNull: false },
+    glazeFiringMinutes: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    heatProgrammeId: DataTypes.UUID,
+    glazeProgrammeId: DataTypes.UUID,
   },
   { sequelize, tableName: "material_modes", modelName: "materialMode", timestamps: false },
 );
@@ -99,4 +109,28 @@ StageDuration.init(
     minutes: { type: DataTypes.INTEGER, allowNull: false },
   },
   { sequelize, tableName: "stage_durations", modelName: "stageDuration", timestamps: false },
+);
+
+/** A furnace programme the clinic runs (its own name and minutes) and the furnaces able to run it. */
+export class FurnaceProgramme extends Model<InferAttributes<FurnaceProgramme>, InferCreationAttributes<FurnaceProgramme>> {
+  declare id: CreationOptional<string>;
+  declare clinicId: string;
+  declare name: string;
+  declare minutes: number;
+  declare furnaceIds: CreationOptional<string[]>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+FurnaceProgramme.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    clinicId: { type: DataTypes.UUID, allowNull: false },
+    name: { type: DataTypes.TEXT, allowNull: false },
+    minutes: { type: DataTypes.INTEGER, allowNull: false },
+    furnaceIds: { type: DataTypes.ARRAY(DataTypes.UUID), allowNull: false, defaultValue: [] },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "furnace_programmes", modelName: "furnaceProgramme" },
 );

@@ -36,10 +36,12 @@ function assertBookableTime(rules: AvailabilityRules, timeline: Timeline, start:
   }
 }
 
-async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
+async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
   const rules = await loadRules(opts.clinic, opts.transaction);
   assertBookableTime(rules, opts.timeline, opts.start, opts.now);
-  const resources = await loadResources(opts.clinic.id, opts.proposal.dentistId, opts.transaction);
+  const all = await loadResources(opts.clinic.id, opts.proposal.dentistId, opts.transaction);
+  // Only furnaces able to run the visit's firing programmes.
+  const resources = opts.furnaceIds ? { ...all, furnace: all.furnace.filter((id) => opts.furnaceIds!.includes(id)) } : all;
   const busy = await loadBusy({
     clinicId: opts.clinic.id,
     resources,
@@ -78,7 +80,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
   if (p.status !== "open") throw conflict("This proposal is closed: ask the clinic for a new one.");
   allowedOption(p, opts.materialId, opts.mode);
   const clinic = (await Clinic.findByPk(p.clinicId))!;
-  const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
+  const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
   assertBookableTime(await loadRules(clinic), timeline, opts.start, now);
 
   for (let attempt = 1; ; attempt++) {
@@ -86,7 +88,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
       return await sequelize.transaction(async (transaction) => {
         const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, transaction });
         if (active) throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.", { appointmentId: active.id });
-        const { assignment, rules } = await placeAt({ clinic, proposal: p, timeline, start: opts.start, now, transaction });
+        const { assignment, rules } = await placeAt({ clinic, proposal: p, timeline, furnaceIds, start: opts.start, now, transaction });
         // A new visit starts with the patient's standing reminder preference; they can still change it per visit.
         const patient = await Patient.findByPk(p.patientId, { attributes: ["reminders"], transaction });
         const appointment = await Appointment.create(
@@ -139,13 +141,13 @@ export async function rescheduleVisit(opts: { appointment: Appointment; start: D
   const proposal = await Proposal.findByPk(appointment.proposalId);
   if (!proposal) throw notFound("That proposal");
   const clinic = (await Clinic.findByPk(appointment.clinicId))!;
-  const { timeline } = await loadTimeline({ clinicId: clinic.id, materialId: appointment.materialId, mode: appointment.mode, tooth: appointment.tooth });
+  const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, materialId: appointment.materialId, mode: appointment.mode, tooth: appointment.tooth });
   try {
     return await sequelize.transaction(async (transaction) => {
       const fresh = await Appointment.findByPk(appointment.id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!fresh || !["requested", "confirmed"].includes(fresh.status)) throw conflict("Only a requested or confirmed visit can be moved.");
       await Reservation.update({ active: false }, { where: { appointmentId: fresh.id }, transaction });
-      const { assignment, rules } = await placeAt({ clinic, proposal, timeline, start: opts.start, now, excludeAppointmentId: fresh.id, transaction });
+      const { assignment, rules } = await placeAt({ clinic, proposal, timeline, furnaceIds, start: opts.start, now, excludeAppointmentId: fresh.id, transaction });
       await AppointmentStage.destroy({ where: { appointmentId: fresh.id }, transaction });
       await Reservation.destroy({ where: { appointmentId: fresh.id }, transaction });
       const from = fresh.startsAt;

@@ -1,6 +1,7 @@
 // Loads what the pure timeline and availability functions need, from the database.
 import { Op, type Transaction } from "sequelize";
-import { ClosedDay, Clinic, Equipment, EquipmentOutage, Material, MaterialMode, OpeningHour, Reservation, StageDuration } from "@/db/models";
+import { ClosedDay, Clinic, Equipment, EquipmentOutage, FurnaceProgramme, Material, MaterialMode, OpeningHour, Reservation, StageDuration } from "@/db/models";
+import { capableFurnaces, ProgrammeUnavailable, withProgrammeMinutes, type FurnaceProgrammeRow } from "@/lib/domain/furnace-programmes";
 import { BusyIndex, type AvailabilityRules, type Resources } from "@/lib/domain/availability";
 import { withDefaults } from "@/lib/domain/clinic-settings";
 import { estimateTimeline, TimelineError, type Timeline } from "@/lib/domain/timeline";
@@ -24,22 +25,35 @@ export async function loadRules(clinic: Clinic, transaction?: Transaction): Prom
   };
 }
 
-export async function loadTimeline(opts: { clinicId: string; materialId: string; mode: Mode; tooth: number; transaction?: Transaction }): Promise<{ timeline: Timeline; material: Material; materialMode: MaterialMode }> {
+/** The visit's timeline, with firing minutes from the assigned furnace programmes, and the furnaces
+ *  able to run them (null: any furnace). A mode whose programme no working furnace runs is a 422. */
+export async function loadTimeline(opts: { clinicId: string; materialId: string; mode: Mode; tooth: number; transaction?: Transaction }): Promise<{ timeline: Timeline; material: Material; materialMode: MaterialMode; furnaceIds: string[] | null }> {
   const material = await Material.findOne({ where: { id: opts.materialId, clinicId: opts.clinicId }, transaction: opts.transaction });
   if (!material) throw notFound("That material");
   const materialMode = await MaterialMode.findOne({ where: { materialId: material.id, mode: opts.mode }, transaction: opts.transaction });
   if (!materialMode) throw unprocessable(`${material.name} cannot be made in the ${opts.mode} mode at this clinic.`, "mode");
   const stageMinutes = await StageDuration.findAll({ where: { clinicId: opts.clinicId }, transaction: opts.transaction });
+  const programmeIds = [materialMode.heatProgrammeId, materialMode.glazeProgrammeId].filter((x): x is string => !!x);
+  const programmes = programmeIds.length ? await FurnaceProgramme.findAll({ where: { id: { [Op.in]: programmeIds }, clinicId: opts.clinicId }, transaction: opts.transaction }) : [];
+  const row = (id: string | null): FurnaceProgrammeRow | null => programmes.find((p) => p.id === id) ?? null;
+  const choice = { heat: material.heatTreatment === "none" ? null : row(materialMode.heatProgrammeId), glaze: materialMode.finishing === "stain_glaze" ? row(materialMode.glazeProgrammeId) : null };
   try {
     const timeline = estimateTimeline({
       material,
-      mode: materialMode,
+      mode: withProgrammeMinutes(materialMode.get({ plain: true }), choice),
       toothClass: fromFdi(opts.tooth).toothClass,
       stageMinutes: stageMinutes.map((s) => ({ stage: s.stage, toothClass: s.toothClass, minutes: s.minutes })),
     });
-    return { timeline, material, materialMode };
+    let furnaceIds: string[] | null = null;
+    if (choice.heat || choice.glaze) {
+      const working = await Equipment.findAll({ where: { clinicId: opts.clinicId, kind: "furnace", active: true }, order: [["name", "ASC"]], transaction: opts.transaction });
+      // Only the firings this visit really has count (a polished finish has no glaze firing).
+      const fires = new Set(timeline.stages.map((s) => s.key));
+      furnaceIds = capableFurnaces(working.map((f) => f.id), [fires.has("heat_treatment") ? choice.heat : null, fires.has("glaze_firing") ? choice.glaze : null]);
+    }
+    return { timeline, material, materialMode, furnaceIds };
   } catch (err) {
-    if (err instanceof TimelineError) throw new AppError(422, err.message);
+    if (err instanceof TimelineError || err instanceof ProgrammeUnavailable) throw new AppError(422, err.message, { field: "mode", code: "mode_unavailable" });
     throw err;
   }
 }

@@ -25,11 +25,13 @@ export async function searchSlots(opts: {
   const today = localDate(now, clinic.timeZone);
   const from = opts.from && opts.from > today ? opts.from : today;
   const days = opts.days ?? DEFAULT_SEARCH_DAYS;
-  const [rules, { timeline }, resources] = await Promise.all([
+  const [rules, { timeline, furnaceIds }, allResources] = await Promise.all([
     loadRules(clinic, transaction),
     loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: proposal.tooth, transaction }),
     loadResources(clinic.id, proposal.dentistId, transaction),
   ]);
+  // Only furnaces able to run the visit's firing programmes.
+  const resources = furnaceIds ? { ...allResources, furnace: allResources.furnace.filter((id) => furnaceIds.includes(id)) } : allResources;
   const busy = await loadBusy({
     clinicId: clinic.id,
     resources,

@@ -12,6 +12,8 @@ import {
   assembleConsent, consentText, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, ELECTRONIC_RECORDS, formatFee, formatInZone, modeLabel,
   parseConsentText, type AssembledConsent, type SectionKey, type VisitSummary,
 } from "@/lib/domain/consent-text";
+import { crownWording } from "@/lib/domain/consent-text";
+import { visitLengthRange } from "@/lib/domain/timeline";
 import { describeTooth } from "@/lib/domain/tooth";
 import { buildConsentPdf, type AuditLine } from "./pdf";
 import { sealPdf } from "./seal";
@@ -51,6 +53,9 @@ export function visitFacts(ctx: VisitContext): VisitSummary {
     fee: formatFee(ctx.visit.feeCents, ctx.clinic.currency),
     clinic: ctx.clinic.name,
     dentist: ctx.dentist.name ?? "your dentist",
+    // The booked visit's length is the estimate for this tooth, material and mode.
+    length: visitLengthRange(Math.round((ctx.visit.endsAt.getTime() - ctx.visit.startsAt.getTime()) / 60_000)).text,
+    ...crownWording(ctx.material.provisionalOnly),
   };
 }
 

@@ -44,6 +44,8 @@ export type BoardVisit = {
   plannedEnd: string;
   projectedEnd: string;
   delayMinutes: number;
+  /** The crown block: VITA classical shade, size, and when it was loaded into the mill. */
+  block: { shade: string | null; size: string | null; loadedAt: string | null };
   stages: BoardStage[];
 };
 
@@ -167,6 +169,7 @@ export async function loadBoard({ clinicId, day: wanted, now = new Date() }: { c
       plannedEnd: iso(p.plannedEnd),
       projectedEnd: iso(p.projectedEnd),
       delayMinutes: p.delayMinutes,
+      block: { shade: v.shade ?? null, size: v.blockSize ?? null, loadedAt: v.blockLoadedAt ? iso(v.blockLoadedAt) : null },
       stages: p.stages.map((s) => ({
         key: s.key,
         label: label(s.key),

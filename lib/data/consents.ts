@@ -318,7 +318,7 @@ export async function staffConsentView({ user, appointmentId }: { user: SessionU
       : null,
     pdfVersions: signed ? await pdfVersions(signed.id) : [],
     canReview: user.role === "dentist" && live?.status === "signed",
-    withdrawn: withdrawn.map((c) => ({ id: c.id, signedAt: c.signedAt, withdrawnAt: c.withdrawnAt!, reason: c.withdrawnReason })),
+    withdrawn: withdrawn.map((c) => ({ id: c.id, signedAt: c.signedAt, withdrawnAt: c.withdrawnAt!, reason: c.withdrawnReason, via: c.withdrawnVia, byName: c.withdrawnByName })),
   };
 }
 

@@ -1,6 +1,9 @@
 // Data access for the clinic's material catalogue.
 import "server-only";
-import { Material, MaterialMode } from "@/db/models";
+import { Equipment, FurnaceProgramme, Material, MaterialMode, StageDuration } from "@/db/models";
+import { capableFurnaces, ProgrammeUnavailable, withProgrammeMinutes } from "@/lib/domain/furnace-programmes";
+import { estimateTimeline, stagesFor, TimelineError } from "@/lib/domain/timeline";
+import { TOOTH_CLASSES, type Mode, type ToothClass } from "@/lib/domain/types";
 
 export async function listMaterials({ clinicId, activeOnly = true }: { clinicId: string; activeOnly?: boolean }) {
   const rows = await Material.findAll({
@@ -25,8 +28,42 @@ export async function listMaterials({ clinicId, activeOnly = true }: { clinicId:
     modes: (m.modes ?? [])
       .slice()
       .sort((a, b) => ["rapid", "standard", "refined"].indexOf(a.mode) - ["rapid", "standard", "refined"].indexOf(b.mode))
-      .map((x) => ({ mode: x.mode, fabricationMinutes: x.fabricationMinutes, heatTreatmentMinutes: x.heatTreatmentMinutes, finishing: x.finishing, finishingMinutes: x.finishingMinutes })),
+      .map((x) => ({ mode: x.mode, fabricationMinutes: x.fabricationMinutes, heatTreatmentMinutes: x.heatTreatmentMinutes, finishing: x.finishing, finishingMinutes: x.finishingMinutes, glazeFiringMinutes: x.glazeFiringMinutes })),
   }));
 }
 
 export type MaterialView = Awaited<ReturnType<typeof listMaterials>>[number];
+
+export type ModeEstimate = { minutes: Record<ToothClass, number | null>; problem: string | null };
+
+/** Estimated visit minutes per material, mode and tooth class, with the furnace programmes applied;
+ *  `problem` says why a mode cannot be planned (then it is not offered). */
+export async function materialEstimates({ clinicId }: { clinicId: string }): Promise<Record<string, Partial<Record<Mode, ModeEstimate>>>> {
+  const [materials, rows, programmes, furnaces] = await Promise.all([
+    Material.findAll({ where: { clinicId, active: true }, include: [{ model: MaterialMode, as: "modes" }] }),
+    StageDuration.findAll({ where: { clinicId } }),
+    FurnaceProgramme.findAll({ where: { clinicId } }),
+    Equipment.findAll({ where: { clinicId, kind: "furnace", active: true } }),
+  ]);
+  const stageMinutes = rows.map((r) => ({ stage: r.stage, toothClass: r.toothClass, minutes: r.minutes }));
+  const programme = (id: string | null) => programmes.find((p) => p.id === id) ?? null;
+  const out: Record<string, Partial<Record<Mode, ModeEstimate>>> = {};
+  for (const m of materials) {
+    out[m.id] = {};
+    for (const row of m.modes ?? []) {
+      const choice = { heat: m.heatTreatment === "none" ? null : programme(row.heatProgrammeId), glaze: row.finishing === "stain_glaze" ? programme(row.glazeProgrammeId) : null };
+      const mode = withProgrammeMinutes(row.get({ plain: true }), choice);
+      const estimate: ModeEstimate = { minutes: { anterior: null, premolar: null, molar: null }, problem: null };
+      try {
+        for (const toothClass of TOOTH_CLASSES) estimate.minutes[toothClass] = estimateTimeline({ material: m, mode, toothClass, stageMinutes }).totalMinutes;
+        const keys = new Set(stagesFor(m, mode));
+        capableFurnaces(furnaces.map((f) => f.id), [keys.has("heat_treatment") ? choice.heat : null, keys.has("glaze_firing") ? choice.glaze : null]);
+      } catch (err) {
+        if (!(err instanceof TimelineError) && !(err instanceof ProgrammeUnavailable)) throw err;
+        estimate.problem = err.message;
+      }
+      out[m.id][row.mode] = estimate;
+    }
+  }
+  return out;
+}

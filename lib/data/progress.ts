@@ -6,6 +6,8 @@ import { Op } from "sequelize";
 import { z } from "zod";
 import { Appointment, AppointmentStage, Clinic, Material, MaterialMode, StageDuration, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
+import { replanVisit, type ReplanResult } from "@/lib/booking/replan";
+import { withDefaults } from "@/lib/domain/clinic-settings";
 import { checkProgress, TRACKED_STAGES } from "@/lib/domain/day-board";
 import { summariseDurations, type DurationSample } from "@/lib/domain/stage-stats";
 import { localDate } from "@/lib/domain/time-zone";
@@ -25,7 +27,13 @@ export const stageMarkSchema = z.object({
 });
 export type StageMark = z.infer<typeof stageMarkSchema>;
 
-export type MarkResult = { id: string; status: string; stage: { key: StageKey; actualStart: string | null; actualEnd: string | null } };
+export type MarkResult = {
+  id: string;
+  status: string;
+  stage: { key: StageKey; actualStart: string | null; actualEnd: string | null };
+  /** Reservations moved to the visit's real times, and those another visit's hold kept in place. */
+  replan: ReplanResult;
+};
 
 export async function markStage(opts: {
   user: SessionUser;
@@ -82,7 +90,19 @@ export async function markStage(opts: {
       transaction,
     );
     if (check.statusAfter === "completed") await recordCompletion(visit, stages, user, opts, transaction);
+    // The rest of the visit's holds move with it, so new bookings see the day as it really runs.
+    const replan = await replanVisit({ appointment: visit, bufferMinutes: withDefaults(clinic.settings).bufferMinutes, transaction });
+    if (replan.conflicts.length) {
+      await recordAudit(
+        {
+          clinicId: visit.clinicId, actorUserId: user.id, action: "visit.replan_conflict", subjectType: "appointment", subjectId: visit.id,
+          ip: opts.ip, userAgent: opts.userAgent, data: { conflicts: replan.conflicts },
+        },
+        transaction,
+      );
+    }
     return {
+      replan,
       id: visit.id,
       status: visit.status,
       stage: { key: stage.key as StageKey, actualStart: stage.actualStart?.toISOString() ?? null, actualEnd: stage.actualEnd?.toISOString() ?? null },
@@ -151,7 +171,7 @@ export async function stageTimeStats({ clinicId, since }: { clinicId: string; si
     .map((s) => {
       const m = byId.get(s.materialId);
       const modeRow = m?.modes?.find((x) => x.mode === s.mode);
-      const current = s.stage === "fabrication" ? modeRow?.fabricationMinutes : s.stage === "heat_treatment" ? modeRow?.heatTreatmentMinutes : s.stage === "finishing" ? modeRow?.finishingMinutes : general.get(s.stage);
+      const current = s.stage === "fabrication" ? modeRow?.fabricationMinutes : s.stage === "heat_treatment" ? modeRow?.heatTreatmentMinutes : s.stage === "finishing" ? modeRow?.finishingMinutes : s.stage === "glaze_firing" ? modeRow?.glazeFiringMinutes : general.get(s.stage);
       return { ...s, material: m?.name ?? "Unknown material", currentMinutes: current ?? null };
     })
     .sort((a, b) => a.material.localeCompare(b.material) || a.mode.localeCompare(b.mode) || STAGE_KEYS.indexOf(a.stage) - STAGE_KEYS.indexOf(b.stage));

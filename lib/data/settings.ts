@@ -14,6 +14,7 @@ import {
   CLINIC_STAGE_KEYS, bookingSettingsSchema, closedDaySchema, equipmentSchema, materialModesSchema, newStaffSchema, openingHoursSchema,
   stageDurationsSchema, staffUpdateSchema, twoFactorRequirementSchema,
 } from "@/lib/domain/settings-schemas";
+import { rescheduleClinicReminders } from "@/lib/mail/reschedule";
 import { recordAudit } from "@/lib/server/audit";
 import { changeStaffAccess } from "./staff";
 import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
@@ -203,7 +204,10 @@ export async function saveBookingSettings(actor: Actor, input: unknown) {
     const clinic = (await Clinic.findByPk(clinicId, { transaction, lock: transaction.LOCK.UPDATE }))!;
     const before = withDefaults(clinic.settings);
     await clinic.update({ settings: { ...clinic.settings, ...value } }, { transaction });
-    return { result: value, data: { before, after: value } };
+    // Reminders not sent yet follow the new timing, in the same transaction.
+    const timingChanged = JSON.stringify(before.reminderHoursBefore) !== JSON.stringify(value.reminderHoursBefore);
+    const reminders = timingChanged ? await rescheduleClinicReminders(clinicId, transaction) : null;
+    return { result: value, data: { before, after: value, ...(reminders ? { reminders } : {}) } };
   });
 }
 

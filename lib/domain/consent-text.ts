@@ -18,7 +18,7 @@ export const SECTION_PURPOSE: Record<SectionKey, string> = {
   questions: "Questions for the dentist",
 };
 
-export const PLACEHOLDERS = ["patient", "tooth", "material", "mode", "date", "fee", "clinic", "dentist"] as const;
+export const PLACEHOLDERS = ["patient", "tooth", "material", "mode", "date", "fee", "clinic", "dentist", "length", "crown", "visits"] as const;
 export type Placeholder = (typeof PLACEHOLDERS)[number];
 export type VisitFacts = Record<Placeholder, string>;
 
@@ -31,11 +31,24 @@ export const PLACEHOLDER_HELP: Record<Placeholder, string> = {
   fee: "the fee",
   clinic: "the clinic's name",
   dentist: "the dentist's name",
+  length: "the visit's expected length, a rounded range from the estimate for this tooth, material and mode",
+  crown: "\"a crown\", or \"a provisional (temporary) crown\" for a provisional material",
+  visits: "one sentence on what one visit covers: no temporary crown, or for a provisional material that a final crown is still needed",
 };
+
+/** The wording that depends on whether the material is a final or a provisional crown. */
+export function crownWording(provisional: boolean): Pick<VisitFacts, "crown" | "visits"> {
+  return provisional
+    ? {
+        crown: "a provisional (temporary) crown",
+        visits: "It is made and fitted in one visit. It is a provisional crown: it protects the tooth for a limited time, and a final crown is still needed at a later appointment.",
+      }
+    : { crown: "a crown", visits: "Everything happens in one visit: no temporary crown and no second appointment for fitting." };
+}
 
 export const DEFAULT_TEMPLATE_TITLE = "Consent to a same-day crown";
 
-// Risks and alternatives follow ../shared/REFERENCES.md: [C] crown consent risks (common practice);
+// Risks and alternatives follow docs/clinical-references.md and docs/references.md: [C] crown consent risks (common practice);
 // [P] ADA Code 1.A (reasonable alternatives) and UK GDC Standards 3.1 (options, risks, benefits,
 // costs, consequences of no treatment).
 export const DEFAULT_SECTIONS: TemplateSection[] = [
@@ -43,9 +56,9 @@ export const DEFAULT_SECTIONS: TemplateSection[] = [
     key: "procedure",
     heading: "What will be done",
     body: [
-      "Your dentist, {dentist}, proposes a new crown for your tooth {tooth}. A crown is a cap that covers the whole visible part of the tooth. Yours will be made of {material} ({mode} finish) during one visit on {date} at {clinic}.",
+      "Your dentist, {dentist}, proposes {crown} for your tooth {tooth}. A crown is a cap that covers the whole visible part of the tooth. Yours will be made of {material} ({mode} finish) during one visit on {date} at {clinic}.",
       "During the visit the dentist numbs the tooth with a local anaesthetic injection, removes decay and old filling material, and shapes the tooth so the crown fits over it. A camera scans the tooth instead of a putty mould. The crown is designed on a screen and cut from a solid block by a milling machine in the clinic. Some materials are then heated in a furnace to reach their full strength. The dentist tries the crown in, adjusts your bite and fixes it in place with dental cement.",
-      "The visit usually takes two to three hours. You can rest or leave the chair while the crown is being made.",
+      "By our estimate for your tooth, material and finish, the visit takes {length}. It can run longer on the day. You can rest or leave the chair while the crown is being made.",
     ].join("\n\n"),
   },
   {
@@ -55,7 +68,7 @@ export const DEFAULT_SECTIONS: TemplateSection[] = [
       "- It protects what is left of a weakened or cracked tooth from breaking.",
       "- It lets you chew normally on that side again.",
       "- It restores the tooth's shape and colour.",
-      "- Everything happens in one visit: no temporary crown and no second appointment for fitting.",
+      "- {visits}",
     ].join("\n"),
   },
   {
@@ -174,6 +187,7 @@ export function visitRows(facts: VisitSummary): VisitRow[] {
     { label: "Material", value: facts.materialClass ? `${facts.material} (ISO 6872 class ${facts.materialClass})` : facts.material },
     { label: "Finishing mode", value: facts.mode },
     { label: "Visit", value: facts.date },
+    { label: "Expected length", value: facts.length },
     { label: "Dentist", value: facts.dentist },
     { label: "Clinic", value: facts.clinic },
   );

@@ -228,7 +228,7 @@ function nearestFreeDevice(devices: BoardDevice[], table: Timetable, v: BoardVis
 
 /** Which stage staff may act on next, in visit order (aftercare is not tracked). */
 export const TRACKED_STAGES: readonly StageKey[] = [
-  "check_in", "anaesthesia", "preparation", "scan", "design", "fabrication", "heat_treatment", "finishing", "try_in", "cementation",
+  "check_in", "anaesthesia", "preparation", "scan", "design", "fabrication", "heat_treatment", "finishing", "glaze_firing", "try_in", "cementation",
 ];
 
 export type StageAction = "start" | "finish";

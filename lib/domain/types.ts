@@ -24,7 +24,7 @@ export const ACTIVE_STATUSES: readonly AppointmentStatus[] = ["requested", "conf
 
 export const STAGE_KEYS = [
   "check_in", "anaesthesia", "preparation", "scan", "design", "fabrication",
-  "heat_treatment", "finishing", "try_in", "cementation", "aftercare",
+  "heat_treatment", "finishing", "glaze_firing", "try_in", "cementation", "aftercare",
 ] as const;
 export type StageKey = (typeof STAGE_KEYS)[number];
 

@@ -13,7 +13,7 @@ import { sealPdf } from "@/lib/consent/seal";
 import { ensureSealCertificate } from "@/lib/consent/seal-certificate";
 import { decodeSignature } from "@/lib/consent/signature";
 import { questionnaireFlags, answerLines, QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
-import { assembleConsent, SECTION_KEYS, type TemplateSection } from "@/lib/domain/consent-text";
+import { assembleConsent, crownWording, SECTION_KEYS, type TemplateSection } from "@/lib/domain/consent-text";
 import { TEXT_LIMITS as L } from "@/lib/domain/text-limits";
 import { createTestClinic, createTestPatient, createTestProposal } from "../support/fixtures";
 import { ensureDatabase, ms, root, run as runCommand, stats } from "./support";
@@ -71,7 +71,7 @@ function worstPdfInput(png: Buffer): ConsentPdfInput {
   const material = { name: word(60), iso6872Class: null, cementation: ["adhesive"] as string[] };
   const document = assembleConsent({
     title: template.title, templateVersion: 1, sections: template.sections, materialCautions: [prose(L.line, 99), prose(L.line, 98)],
-    facts: { materialClass: null, dateOfBirth: "1980-01-01", patient: word(L.personName), tooth: "36 (Universal 19) — lower left first molar", material: material.name, mode: "refined", date: "Tuesday 8 December 2026, 09:30", fee: "$1,450.00", clinic: word(L.clinicName), dentist: word(L.personName) },
+    facts: { materialClass: null, dateOfBirth: "1980-01-01", patient: word(L.personName), tooth: "36 (Universal 19) — lower left first molar", material: material.name, mode: "refined", date: "Tuesday 8 December 2026, 09:30", fee: "$1,450.00", clinic: word(L.clinicName), dentist: word(L.personName), length: "about 2½ to 3 hours", ...crownWording(false) },
   });
   const answers = worstAnswers();
   const audit = ["Consent opened by the patient (first of 9 openings)", "Consent opened by the patient (latest of 9 openings)", "Consent signed by the patient", "Consent reviewed by the dentist"].map((event) => ({

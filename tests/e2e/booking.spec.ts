@@ -46,9 +46,10 @@ test.describe("booking a crown visit", () => {
     expect(visit).toEqual({ status: "confirmed", mode: "standard" });
     const reservations = await query<{ resource_kind: string; n: string }>(
       "SELECT resource_kind, count(*) AS n FROM reservations WHERE appointment_id = $1 AND active GROUP BY resource_kind ORDER BY resource_kind", [visitId]);
-    // chair for every stage but aftercare (10), dentist for six stages, one mill stage, one furnace stage.
+    // Zirconia, stained and glazed: chair for every stage but aftercare (11), dentist for six stages, one mill stage,
+    // and the furnace twice: sintering and the glaze firing.
     expect(reservations).toEqual([
-      { resource_kind: "chair", n: "10" }, { resource_kind: "dentist", n: "6" }, { resource_kind: "furnace", n: "1" }, { resource_kind: "mill", n: "1" },
+      { resource_kind: "chair", n: "11" }, { resource_kind: "dentist", n: "6" }, { resource_kind: "furnace", n: "2" }, { resource_kind: "mill", n: "1" },
     ]);
     const audit = await query<{ action: string }>("SELECT action FROM audit_events WHERE subject_id = $1 ORDER BY id", [visitId]);
     expect(audit.map((a) => a.action)).toEqual(expect.arrayContaining(["visit.requested", "visit.confirmed"]));

@@ -155,8 +155,9 @@ test("walks the demo day: check-in, a late milling shifts the next crown on the 
 
   // Reception finds who received that lot, for a recall.
   await reception.getByRole("link", { name: "Lots" }).click();
-  await expect(reception).toHaveURL(/\/clinic\/lots$/);
-  await reception.getByLabel("Lot number").fill(lot.toLowerCase());
+  // Wait for the lots page: the visit page has a "Lot number typed by hand" option too.
+  await expect(reception).toHaveURL(/\/clinic\/lots/);
+  await reception.getByLabel("Lot number", { exact: true }).fill(lot.toLowerCase());
   await reception.getByRole("button", { name: "Find patients" }).click();
   await expect(reception.getByTestId("lot-results")).toContainText("1 patient received lot");
   await expect(reception.getByTestId("lot-results").getByRole("link", { name: "Tobias Renfrew" })).toBeVisible();

@@ -31,15 +31,15 @@ function intlWallClock(instant: Date, zone: string) {
 
 describe("availability", () => {
   it("offers grid starts where the whole visit fits inside one opening interval", () => {
-    // 2027-03-10 is a Wednesday. 167 min visit: morning 08:00–09:45 (08:00 + 167 ≤ 12:30 → last 09:45), afternoon 13:30–15:15.
+    // 2027-03-10 is a Wednesday. 172 min visit: morning 08:00–09:30 (09:30 + 172 ≤ 12:30), afternoon 13:30–15:00.
     const slots = findSlots({ timeline: zrStandard, rules: rules(), resources, busy: none, from: "2027-03-10", days: 1, now: longAgo });
     const times = slots.map((s) => isoInZone(s.start, "America/Toronto").slice(11, 16));
     expect(times[0]).toBe("08:00");
     expect(times).toContain("09:30");
-    expect(times).not.toContain("09:45"); // 09:45 + 167 min = 12:32, past the lunch break
+    expect(times).not.toContain("09:45"); // 09:45 + 172 min = 12:37, past the lunch break
     expect(times).toContain("13:30");
     expect(times.at(-1)).toBe("15:00");
-    for (const s of slots) expect(s.end.getTime() - s.start.getTime()).toBe(167 * 60_000);
+    for (const s of slots) expect(s.end.getTime() - s.start.getTime()).toBe(172 * 60_000);
   });
 
   it("skips closed weekdays and closed days", () => {
@@ -102,7 +102,8 @@ describe("availability", () => {
   });
 
   it("lets the dentist start a second visit while the first crown is milled and fired", () => {
-    // Zirconia refined, molar: the dentist is free from design's end (70 min) to try-in (140 min).
+    // Zirconia refined, molar: the dentist is free from design's end (70 min) to try-in (151 min); the one
+    // furnace sinters it from 88 to 128 min and glaze-fires it from 136 to 151 min.
     const zrRefined = estimateTimeline({ material: zr, mode: zr.modes.find((m) => m.mode === "refined")!, toothClass: "molar", stageMinutes });
     const first = new Date("2027-03-10T13:00:00Z");
     const holds = holdsFor(zrRefined, first.getTime(), 10);
@@ -110,10 +111,13 @@ describe("availability", () => {
     const busy = new BusyIndex(holds.map((h) => ({ resourceId: ids[h.kind], start: h.start, end: h.end })));
     const zrAnterior = estimateTimeline({ material: zr, mode: zr.modes.find((m) => m.mode === "standard")!, toothClass: "anterior", stageMinutes });
     const slots = findSlots({ timeline: zrAnterior, rules: rules(), resources, busy, from: "2027-03-10", days: 1, now: longAgo });
-    // A zirconia front tooth needs the dentist from +5 to +60 min: starting at 09:15 that ends before the first try-in (10:20),
-    // and its own try-in (11:32) comes after the first cementation ends (10:45).
-    const second = slots.find((s) => s.start.toISOString() === "2027-03-10T14:15:00.000Z");
+    // A zirconia front tooth needs the dentist from +5 to +60 min and the furnace from +72 to +107 min.
+    // Starting at 09:15 its sintering (10:27) would meet the first crown's glaze firing (10:16–10:31): refused.
+    // Starting at 09:30 the dentist is done at 10:30, before the first try-in (10:31), the furnace is free from
+    // 10:31, and its own try-in (11:37) comes after the first cementation ends (10:56).
+    const second = slots.find((s) => s.start.toISOString() === "2027-03-10T14:30:00.000Z");
     expect(second?.assignment.chair).toBe("c2");
+    expect(slots.some((s) => s.start.toISOString() === "2027-03-10T14:15:00.000Z")).toBe(false);
     expect(slots.some((s) => s.start.toISOString() === "2027-03-10T14:00:00.000Z")).toBe(false);
     // No offered slot needs the single mill while the first crown is on it.
     const mill = holds.find((h) => h.kind === "mill")!;

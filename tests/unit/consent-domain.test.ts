@@ -6,9 +6,11 @@ import { answerLines, QUESTION_KEYS, questionnaireFlags, type QuestionnaireAnswe
 import { consentFormSchema, nameKey, signConsentSchema } from "@/lib/domain/consent-schemas";
 import { inkStats, signatureProblem } from "@/lib/domain/consent-signature";
 import {
-  assembleConsent, consentText, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, parseBlocks, parseConsentText, SECTION_KEYS, templateProblems,
+  assembleConsent, consentText, crownWording, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, parseBlocks, parseConsentText, SECTION_KEYS, templateProblems,
   type VisitSummary,
 } from "@/lib/domain/consent-text";
+import { CATALOGUE, DEFAULT_STAGE_MINUTES } from "@/db/seed/catalogue";
+import { estimateTimeline, visitLengthRange } from "@/lib/domain/timeline";
 
 const noAnswers = (): QuestionnaireAnswers => ({
   ...(Object.fromEntries(QUESTION_KEYS.map((k) => [k, "no"])) as Record<(typeof QUESTION_KEYS)[number], "no">),
@@ -29,6 +31,8 @@ const facts: VisitSummary = {
   fee: "$1,450.00",
   clinic: "Alder Bay Dental Studio",
   dentist: "Dr Amara Quist",
+  length: "about 2 h 45 min to 3 h 15 min",
+  ...crownWording(false),
   materialClass: 5,
   dateOfBirth: "1984-03-17",
 };
@@ -92,6 +96,39 @@ describe("consent text", () => {
     const material = doc.sections.find((s) => s.key === "material")!;
     expect(material.heading).toBe("About your material: Zirconia");
     expect(material.blocks.at(-1)).toEqual({ kind: "list", items: ["Looks a little opaque", "Adds furnace time"] });
+  });
+
+  it("states the visit length from the estimate, never a fixed \"two to three hours\"", () => {
+    const text = consentText(doc);
+    expect(text).not.toMatch(/two to three hours/);
+    expect(text).toContain("the visit takes about 2 h 45 min to 3 h 15 min.");
+    expect(doc.visit).toContainEqual({ label: "Expected length", value: "about 2 h 45 min to 3 h 15 min" });
+  });
+
+  it("gives each seeded material and mode its own length: the estimate lies inside the range the patient reads", () => {
+    const rows = DEFAULT_STAGE_MINUTES.map((s) => ({ stage: s.stage, toothClass: s.toothClass ?? null, minutes: s.minutes }));
+    const texts = new Set<string>();
+    for (const m of CATALOGUE) for (const mode of m.modes) {
+      const minutes = estimateTimeline({ material: m, mode, toothClass: m.toothClasses[0], stageMinutes: rows }).totalMinutes;
+      const range = visitLengthRange(minutes);
+      expect(range.fromMinutes).toBeLessThanOrEqual(minutes);
+      expect(range.toMinutes).toBeGreaterThan(minutes);
+      const text = consentText(assembleConsent({ title: DEFAULT_TEMPLATE_TITLE, templateVersion: 1, sections: DEFAULT_SECTIONS, facts: { ...facts, length: range.text, ...crownWording(!!m.provisionalOnly) }, materialCautions: m.cautions }));
+      expect(text).toContain(`the visit takes ${range.text}.`);
+      for (const c of m.cautions) expect(text).toContain(c);
+      texts.add(range.text);
+    }
+    // 109 to 186 minutes of estimates do not collapse into one fixed phrase.
+    expect(texts.size).toBeGreaterThan(3);
+  });
+
+  it("uses provisional wording for a provisional material and never promises \"no temporary crown\"", () => {
+    const pmma = CATALOGUE.find((m) => m.key === "pmma")!;
+    const text = consentText(assembleConsent({ title: DEFAULT_TEMPLATE_TITLE, templateVersion: 1, sections: DEFAULT_SECTIONS, facts: { ...facts, material: pmma.name, ...crownWording(true) }, materialCautions: pmma.cautions }));
+    expect(text).toContain("proposes a provisional (temporary) crown for your tooth");
+    expect(text).toContain("a final crown is still needed");
+    expect(text).not.toContain("no temporary crown");
+    expect(consentText(doc)).toContain("no temporary crown");
   });
 
   it("names no treatment and a two-visit laboratory crown among the alternatives ([P] UK GDC Standards 3.1; ADA Code 1.A)", () => {

@@ -1,6 +1,7 @@
 // The day board's projection: late stages shift their visit, and through shared machines later visits.
 import { describe, expect, it } from "vitest";
 import { checkProgress, projectDay, type BoardDevice, type BoardVisitInput } from "@/lib/domain/day-board";
+import { STAGE_ORDERS } from "@/db/seed/catalogue";
 import { estimateTimeline, type StageMinuteRow } from "@/lib/domain/timeline";
 import type { AppointmentStatus } from "@/lib/domain/types";
 
@@ -20,7 +21,7 @@ const ROWS: StageMinuteRow[] = [
 ];
 // Zirconia-like: 15 min milling, 20 min sintering, 10 min polish.
 const TIMELINE = estimateTimeline({
-  material: { fabrication: "dry_milling", heatTreatment: "sintering" },
+  material: { fabrication: "dry_milling", heatTreatment: "sintering", stageOrder: STAGE_ORDERS.sintered },
   mode: { fabricationMinutes: 15, heatTreatmentMinutes: 20, finishing: "polish", finishingMinutes: 10 },
   toothClass: "molar",
   stageMinutes: ROWS,

@@ -138,6 +138,9 @@ export function BoardLanes({ board }: { board: Board }) {
                               <span className="block font-bold">{conflicts.length ? "⚠ " : ""}{b.visit.initials} · {b.visit.tooth.fdi}</span>
                               <span className="block whitespace-nowrap">{b.stages.length === 1 ? b.stages[0].label : `${b.visit.material} · ${b.visit.mode}`}</span>
                               <span className="block whitespace-nowrap">{shift > 0 ? `${shift} min late` : shift < 0 ? `${-shift} min early` : STATUS_LABEL[b.visit.status]}</span>
+                              {b.stages.length === 1 && b.stages[0].key === "fabrication" && b.stages[0].state === "planned" ? (
+                                <span className="block whitespace-nowrap" data-testid="block-mark">{b.visit.block.loadedAt ? "✓ block loaded" : "block not loaded"}</span>
+                              ) : null}
                             </span>
                           </Link>
                         </div>

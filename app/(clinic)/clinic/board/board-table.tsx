@@ -30,6 +30,7 @@ export function BoardTable({ board }: { board: Board }) {
                   </Link>
                   <span className="ml-2 font-normal text-ink-soft">
                     {STATUS_LABEL[v.status]} · {hhmm(v.plannedStart)}–{hhmm(v.plannedEnd)} planned, ends about {hhmm(v.projectedEnd)} ({shiftText(v.delayMinutes)}) · {v.dentist}
+                    {" · "}{v.block.loadedAt ? `block loaded ${hhmm(v.block.loadedAt)}` : "block not loaded"}{v.block.shade ? ` · shade ${v.block.shade}` : ""}
                   </span>
                   {conflicts.map((c) => (
                     <span key={c.stageKey} className="mt-1 block font-normal text-clay-700">⚠ Conflict: {c.message} Proposal: {c.proposal}</span>

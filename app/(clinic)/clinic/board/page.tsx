@@ -12,7 +12,10 @@ export default async function DayBoardPage({ searchParams }: { searchParams: Pro
     <div className="space-y-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h1 className="text-2xl font-bold">Day board</h1>
-        <Link href="/clinic/board/equipment" className="inline-flex min-h-6 items-center text-sm font-semibold">Equipment status</Link>
+        <span className="flex flex-wrap gap-4">
+          <Link href={`/clinic/board/mill-prep${day && /^\d{4}-\d{2}-\d{2}$/.test(day) ? `?day=${day}` : ""}`} className="inline-flex min-h-6 items-center text-sm font-semibold">Mill preparation</Link>
+          <Link href="/clinic/board/equipment" className="inline-flex min-h-6 items-center text-sm font-semibold">Equipment status</Link>
+        </span>
       </div>
       <DayBoard initialDay={day && /^\d{4}-\d{2}-\d{2}$/.test(day) ? day : null} />
     </div>

@@ -5,6 +5,7 @@ const SECTIONS = [
   { href: "/clinic/settings/hours", label: "Opening hours" },
   { href: "/clinic/settings/equipment", label: "Equipment" },
   { href: "/clinic/settings/durations", label: "Stage durations" },
+  { href: "/clinic/settings/plan", label: "Visit plan" },
   { href: "/clinic/settings/stage-times", label: "Estimated vs actual" },
   { href: "/clinic/settings/booking", label: "Booking and reminders" },
   { href: "/clinic/settings/staff", label: "Staff" },

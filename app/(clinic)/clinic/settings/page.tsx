@@ -8,6 +8,7 @@ const CARDS = [
   { href: "/clinic/settings/hours", title: "Opening hours and closed days", text: "When visits can be booked, with lunch breaks and holidays." },
   { href: "/clinic/settings/equipment", title: "Chairs, mills and furnaces", text: "The equipment visits are planned on. Mark something out of service from the day board." },
   { href: "/clinic/settings/durations", title: "Stage durations", text: "Minutes per visit stage, and per material and finishing mode." },
+  { href: "/clinic/settings/plan", title: "Visit plan", text: "The order of stages per material, furnace programmes and which furnaces can run them." },
   { href: "/clinic/settings/stage-times", title: "Estimated against actual", text: "How long stages really take, to tune the durations." },
   { href: "/clinic/settings/booking", title: "Booking and reminders", text: "Booking grid, buffers, notice, cancellation cut-off and reminder timing." },
   { href: "/clinic/settings/staff", title: "Staff accounts", text: "Who can sign in, and as which role." },

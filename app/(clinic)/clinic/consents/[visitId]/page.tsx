@@ -8,6 +8,9 @@ import { StatusBadge } from "@/components/visits/status-badge";
 import { requirePageUser, STAFF_ROLES } from "@/lib/auth/session";
 import { staffConsentView } from "@/lib/data/consents";
 import { when } from "@/lib/format";
+import { WITHDRAWAL_CHANNEL_LABEL } from "@/lib/domain/consent-withdrawal";
+import { localDate, localTime } from "@/lib/domain/time-zone";
+import { RecordWithdrawal } from "./record-withdrawal";
 import { ReviewButton } from "./review-button";
 
 export const metadata: Metadata = { title: "Consent review" };
@@ -101,12 +104,22 @@ export default async function ConsentReviewPage({ params }: { params: Promise<{ 
         </div>
       )}
 
+      {signed && ["requested", "confirmed", "checked_in"].includes(visit.status) ? (
+        <details className="card" data-testid="record-withdrawal">
+          <summary className="cursor-pointer font-semibold">The patient withdrew consent by phone, in person or in writing</summary>
+          <p className="mt-2 text-sm text-ink-soft">Record it here for them. The consent is kept on record as withdrawn, and treatment cannot start until a new consent is signed and reviewed.</p>
+          <div className="mt-3"><RecordWithdrawal consentId={signed.id} today={localDate(new Date(), zone)} nowTime={localTime(new Date(), zone).slice(0, 5)} /></div>
+        </details>
+      ) : null}
       {view.withdrawn.length ? (
         <section className="card space-y-2" aria-labelledby="withdrawn-heading">
           <h2 id="withdrawn-heading" className="text-lg font-semibold">Withdrawn earlier</h2>
           <ul className="space-y-1 text-sm">
             {view.withdrawn.map((w) => (
-              <li key={w.id}>Signed {w.signedAt ? when(w.signedAt, zone) : ""}, withdrawn {when(w.withdrawnAt, zone)}{w.reason ? `: “${w.reason}”` : ""}</li>
+              <li key={w.id}>
+                Signed {w.signedAt ? when(w.signedAt, zone) : ""}, withdrawn {when(w.withdrawnAt, zone)}
+                {w.via ? ` ${WITHDRAWAL_CHANNEL_LABEL[w.via as keyof typeof WITHDRAWAL_CHANNEL_LABEL]}` : ""}{w.byName ? ` by ${w.byName}` : ""}{w.reason ? `: “${w.reason}”` : ""}
+              </li>
             ))}
           </ul>
         </section>

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { requirePageUser } from "@/lib/auth/session";
-import { listMaterials } from "@/lib/data/materials";
+import { listMaterials, materialEstimates } from "@/lib/data/materials";
 import { proposalFormChoices } from "@/lib/data/proposals";
 import { ProposalForm } from "./proposal-form";
 
@@ -9,7 +9,11 @@ export const metadata: Metadata = { title: "New crown proposal" };
 export default async function NewProposalPage({ searchParams }: { searchParams: Promise<{ patient?: string }> }) {
   const user = await requirePageUser(["dentist", "admin"]);
   const { patient: preselected } = await searchParams;
-  const [{ patients, dentists }, materials] = await Promise.all([proposalFormChoices({ user }), listMaterials({ clinicId: user.clinicId! })]);
+  const [{ patients, dentists }, materials, estimates] = await Promise.all([
+    proposalFormChoices({ user }),
+    listMaterials({ clinicId: user.clinicId! }),
+    materialEstimates({ clinicId: user.clinicId! }),
+  ]);
   return (
     <div className="mx-auto max-w-read space-y-4">
       <h1 className="text-2xl font-bold">New crown proposal</h1>
@@ -19,7 +23,10 @@ export default async function NewProposalPage({ searchParams }: { searchParams: 
         patients={patients}
         patientId={preselected}
         dentists={dentists}
-        materials={materials.map((m) => ({ id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode) }))}
+        materials={materials.map((m) => ({
+          id: m.id, name: m.name, toothClasses: m.indications.toothClasses, modes: m.modes.map((x) => x.mode),
+          cautions: m.cautions, provisionalOnly: m.indications.provisionalOnly, estimates: estimates[m.id] ?? {},
+        }))}
       />
     </div>
   );

@@ -7,8 +7,9 @@ import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { proposalSchema } from "@/lib/booking/schemas";
 import { describeTooth, isValidFdi } from "@/lib/domain/tooth";
-import type { Mode } from "@/lib/domain/types";
-import { MODE_WORDS } from "@/lib/format";
+import { visitLengthRange } from "@/lib/domain/timeline";
+import type { Mode, ToothClass } from "@/lib/domain/types";
+import { duration, MODE_WORDS } from "@/lib/format";
 
 type Input = z.input<typeof proposalSchema>;
 type Output = z.output<typeof proposalSchema>;
@@ -18,7 +19,16 @@ type Props = {
   /** Preselected when the proposal is started from a patient's page. */
   patientId?: string;
   dentists: { id: string; name: string }[];
-  materials: { id: string; name: string; toothClasses: string[]; modes: Mode[] }[];
+  materials: {
+    id: string;
+    name: string;
+    toothClasses: string[];
+    modes: Mode[];
+    cautions: string[];
+    provisionalOnly: boolean;
+    /** Estimated visit minutes per mode and tooth class. */
+    estimates: Partial<Record<Mode, { minutes: Record<ToothClass, number | null>; problem: string | null }>>;
+  }[];
 };
 
 export function ProposalForm({ role, patients, patientId, dentists, materials }: Props) {
@@ -84,13 +94,30 @@ export function ProposalForm({ role, patients, patientId, dentists, materials }:
               <div key={m.id} className={`rounded-lg border border-line p-3 ${indicated ? "" : "opacity-60"}`}>
                 <p className="font-semibold">{m.name}{indicated ? "" : ` — not indicated for a ${toothInfo!.toothClass} tooth`}</p>
                 <div className="mt-1 flex flex-wrap gap-3">
-                  {m.modes.map((mode) => (
-                    <label key={mode} className="inline-flex min-h-10 items-center gap-2 text-sm">
-                      <input type="checkbox" className="size-5 accent-harbour-600" disabled={!indicated} checked={allowed[m.id]?.includes(mode) ?? false} onChange={(e) => toggle(m.id, mode, e.target.checked)} />
-                      {MODE_WORDS[mode].name}
-                    </label>
-                  ))}
+                  {m.modes.map((mode) => {
+                    const estimate = m.estimates[mode];
+                    const minutes = toothInfo ? estimate?.minutes[toothInfo.toothClass] ?? null : null;
+                    const unavailable = estimate?.problem ?? null;
+                    return (
+                      <label key={mode} className="inline-flex min-h-10 flex-wrap items-center gap-2 text-sm">
+                        <input type="checkbox" className="size-5 accent-harbour-600" disabled={!indicated || !!unavailable} checked={allowed[m.id]?.includes(mode) ?? false} onChange={(e) => toggle(m.id, mode, e.target.checked)} />
+                        {MODE_WORDS[mode].name}
+                        {unavailable ? <span className="text-clay-700">· not offered: {unavailable}</span>
+                          : toothInfo && indicated && minutes ? (
+                            <span className="text-ink-muted" data-testid={`estimate-${m.id}-${mode}`}>· visit {duration(minutes)} (the patient reads {visitLengthRange(minutes).text})</span>
+                          ) : null}
+                      </label>
+                    );
+                  })}
                 </div>
+                {!toothInfo ? <p className="mt-1 text-xs text-ink-muted">Enter the tooth to see the estimated visit length.</p> : null}
+                {m.provisionalOnly ? <p className="mt-1 text-sm font-semibold text-clay-700">Provisional material: a final crown is still needed.</p> : null}
+                {m.cautions.length ? (
+                  <div className="mt-1 text-sm">
+                    <p className="font-semibold text-clay-700">Cautions</p>
+                    <ul className="list-disc pl-5 text-ink-soft" data-testid={`cautions-${m.id}`}>{m.cautions.map((c) => <li key={c}>{c}</li>)}</ul>
+                  </div>
+                ) : null}
               </div>
             );
           })}

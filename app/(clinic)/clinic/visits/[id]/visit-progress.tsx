@@ -25,6 +25,7 @@ export function VisitProgress({ visitId, canMark }: { visitId: string; canMark: 
   const [loadError, setLoadError] = useState<string | null>(null);
   const [actionError, setActionError] = useState<string | null>(null);
   const [done, setDone] = useState<string | null>(null);
+  const [held, setHeld] = useState<string | null>(null);
   const [time, setTime] = useState("");
   const [busy, setBusy] = useState(false);
 
@@ -62,6 +63,7 @@ export function VisitProgress({ visitId, canMark }: { visitId: string; canMark: 
     setBusy(true);
     setActionError(null);
     setDone(null);
+    setHeld(null);
     const at = time ? `${data.day}T${time}:00${offset}` : undefined;
     const res = await fetch(`/api/appointments/${visitId}/stages/${next.key}`, {
       method: "POST",
@@ -76,6 +78,9 @@ export function VisitProgress({ visitId, canMark }: { visitId: string; canMark: 
     }
     const recorded: string = action === "start" ? body.stage.actualStart : body.stage.actualEnd;
     setDone(`${next.label} ${action === "start" ? "started" : "finished"} at ${hhmm(toClinic(recorded, offset))}.`);
+    // Holds that could not follow the new times because another visit has the machine or the dentist then.
+    const stuck = (body.replan?.conflicts ?? []) as { stage: string; resourceKind: string }[];
+    if (stuck.length) setHeld(`${stuck.length} hold${stuck.length === 1 ? "" : "s"} of this visit could not move (${stuck.map((c) => `${c.stage.replace("_", " ")} on the ${c.resourceKind}`).join(", ")}): another visit has it then. Check the day board and tell reception.`);
     setTime("");
     await load();
     router.refresh();
@@ -121,6 +126,7 @@ export function VisitProgress({ visitId, canMark }: { visitId: string; canMark: 
       </ol>
 
       {done ? <p role="status" className="rounded-lg bg-sage-50 p-3 text-sm font-medium text-sage-700" data-testid="progress-done">{done}</p> : null}
+      {held ? <p role="alert" className="rounded-lg bg-clay-50 p-3 text-sm font-medium text-clay-700" data-testid="replan-conflict">{held}</p> : null}
       {actionError ? <p role="alert" className="rounded-lg bg-clay-50 p-3 text-sm font-medium text-clay-700" data-testid="progress-error">{actionError}</p> : null}
 
       {markable && next && action ? (

@@ -2,7 +2,8 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { duration, MODE_WORDS, money } from "@/lib/format";
+import { MODE_WORDS, money } from "@/lib/format";
+import { visitLengthRange } from "@/lib/domain/timeline";
 import type { Mode } from "@/lib/domain/types";
 import { SlotPicker, type SlotOption } from "@/components/visits/slot-picker";
 
@@ -23,7 +24,8 @@ function lengthRange(c: MaterialChoice) {
   const mins = c.modes.map((m) => m.totalMinutes);
   const lo = Math.min(...mins);
   const hi = Math.max(...mins);
-  return lo === hi ? duration(lo) : `${duration(lo)} – ${duration(hi)}`;
+  // A rounded range around the estimates, as the consent states it.
+  return visitLengthRange(lo, hi).text;
 }
 
 /** Proposal → material → mode → day and time → review → book, on one phone-sized page. */
@@ -70,7 +72,7 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
               <input type="radio" name="material" value={c.id} checked={materialId === c.id} onChange={() => { setMaterialId(c.id); setMode(null); setSlot(null); }} className="mt-1.5 size-5 accent-harbour-600" />
               <span className="block flex-1">
                 <span className="block text-lg font-semibold">{c.name}</span>
-                <span className="block text-sm text-ink-soft">Visit about {lengthRange(c)} · {c.heatTreatment === "none" ? "no furnace time" : c.heatTreatment === "sintering" ? "includes sintering in the furnace" : "includes a firing in the furnace"}</span>
+                <span className="block text-sm text-ink-soft">Visit {lengthRange(c)} · {c.heatTreatment === "sintering" ? "includes sintering in the furnace" : c.heatTreatment === "crystallisation" ? "includes a firing in the furnace" : c.modes.some((m) => m.finishing === "stain_glaze") ? "a furnace firing only for a glazed finish" : "no furnace time"}</span>
                 <span className="mt-2 block">{c.description}</span>
                 <span className="mt-2 grid gap-2 sm:grid-cols-2">
                   <span className="block">
@@ -97,14 +99,14 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
             <label key={m.mode} className="card flex cursor-pointer items-start gap-3 has-[:checked]:border-harbour-600 has-[:checked]:ring-2 has-[:checked]:ring-harbour-600">
               <input type="radio" name="mode" value={m.mode} checked={effectiveMode === m.mode} onChange={() => { setMode(m.mode); setSlot(null); }} className="mt-1.5 size-5 accent-harbour-600" />
               <span>
-                <span className="block font-semibold">{MODE_WORDS[m.mode].name} · about {duration(m.totalMinutes)}</span>
+                <span className="block font-semibold">{MODE_WORDS[m.mode].name} · {visitLengthRange(m.totalMinutes).text}</span>
                 <span className="block text-sm text-ink-soft">{MODE_WORDS[m.mode].blurb} {m.finishing === "stain_glaze" ? "Stained and glazed." : "Polished."}</span>
               </span>
             </label>
           ))}
         </fieldset>
       ) : material && modeInfo ? (
-        <p className="card text-sm"><strong>{MODE_WORDS[modeInfo.mode].name} finish</strong> · about {duration(modeInfo.totalMinutes)}. {MODE_WORDS[modeInfo.mode].blurb}</p>
+        <p className="card text-sm"><strong>{MODE_WORDS[modeInfo.mode].name} finish</strong> · {visitLengthRange(modeInfo.totalMinutes).text}. {MODE_WORDS[modeInfo.mode].blurb}</p>
       ) : null}
 
       {material && effectiveMode ? (
@@ -136,7 +138,7 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
             <dt className="text-ink-muted">Material</dt><dd>{material.name}</dd>
             <dt className="text-ink-muted">Finish</dt><dd>{MODE_WORDS[modeInfo.mode].name}</dd>
             <dt className="text-ink-muted">Starts</dt><dd data-testid="review-start">{slot.label}</dd>
-            <dt className="text-ink-muted">Length</dt><dd>about {duration(modeInfo.totalMinutes)}; plan to stay the whole time</dd>
+            <dt className="text-ink-muted">Length</dt><dd>{visitLengthRange(modeInfo.totalMinutes).text}; plan to stay the whole time</dd>
             <dt className="text-ink-muted">Fee</dt><dd>{money(feeCents, currency)}</dd>
           </dl>
           <p className="text-sm text-ink-soft">The clinic confirms your request. Before the visit you answer health questions and sign consent here.</p>

@@ -30,9 +30,14 @@ export default async function ProposalPage({ params }: { params: Promise<{ id: s
     if (!m) continue;
     const modes = [];
     for (const mode of option.modes) {
-      const { timeline, materialMode } = await loadTimeline({ clinicId: row.clinicId, materialId: m.id, mode, tooth: row.tooth });
-      modes.push({ mode, totalMinutes: timeline.totalMinutes, finishing: materialMode.finishing });
+      // A mode the clinic cannot make today (e.g. no furnace runs its programme) is not offered.
+      const planned = await loadTimeline({ clinicId: row.clinicId, materialId: m.id, mode, tooth: row.tooth }).catch((err) => {
+        if (err instanceof AppError && err.status === 422) return null;
+        throw err;
+      });
+      if (planned) modes.push({ mode, totalMinutes: planned.timeline.totalMinutes, finishing: planned.materialMode.finishing });
     }
+    if (!modes.length) continue;
     choices.push({ id: m.id, name: m.name, description: m.description, pros: m.pros, cautions: m.cautions, heatTreatment: m.heatTreatment, provisionalOnly: m.indications.provisionalOnly, modes });
   }
 

@@ -12,8 +12,9 @@ import { requirePageUser } from "@/lib/auth/session";
 import { getVisitPage, getVisitTimeline } from "@/lib/data/visits";
 import { patientMayChange } from "@/lib/booking/transitions";
 import { withDefaults } from "@/lib/domain/clinic-settings";
+import { visitLengthRange } from "@/lib/domain/timeline";
 import { describeTooth } from "@/lib/domain/tooth";
-import { duration, MODE_WORDS, money, when } from "@/lib/format";
+import { MODE_WORDS, money, when } from "@/lib/format";
 import { AppError } from "@/lib/server/errors";
 
 export const metadata: Metadata = { title: "My visit" };
@@ -45,12 +46,19 @@ export default async function PatientVisitPage({ params }: { params: Promise<{ i
         <h2 id="summary" className="sr-only">Summary</h2>
         <dl className="grid grid-cols-[6.5rem_1fr] gap-y-1">
           <dt className="text-ink-muted">Starts</dt><dd data-testid="visit-start">{when(visit.startsAt, zone)}</dd>
-          <dt className="text-ink-muted">Length</dt><dd>about {duration(minutes)}</dd>
+          <dt className="text-ink-muted">Length</dt><dd data-testid="visit-length">{visitLengthRange(minutes).text} (our estimate for your tooth and material)</dd>
           <dt className="text-ink-muted">Material</dt><dd>{material?.name}</dd>
           <dt className="text-ink-muted">Finish</dt><dd>{MODE_WORDS[visit.mode].name}</dd>
           <dt className="text-ink-muted">Fee</dt><dd>{money(visit.feeCents, clinic!.currency)}</dd>
           <dt className="text-ink-muted">Where</dt><dd>{clinic!.name}, {clinic!.address}</dd>
         </dl>
+        {material?.provisionalOnly ? <p className="mt-2 text-sm font-semibold text-clay-700">This is a provisional (temporary) crown: a final crown is still needed later.</p> : null}
+        {material?.cautions.length ? (
+          <div className="mt-2 text-sm">
+            <p className="font-semibold">Cautions for {material.name}</p>
+            <ul className="list-disc pl-5" data-testid="material-cautions">{material.cautions.map((c) => <li key={c}>{c}</li>)}</ul>
+          </div>
+        ) : null}
         {visit.statusReason ? <p className="mt-2 text-sm">Note from the clinic: {visit.statusReason}</p> : null}
       </section>
       {active ? (
