@@ -9,6 +9,7 @@ import { millPrepList, type PrepItem } from "@/lib/domain/mill-prep";
 import { recordAudit } from "@/lib/server/audit";
 import { conflict, forbidden, notFound } from "@/lib/server/errors";
 import { loadBoard } from "./board";
+import "@/lib/mail/hooks";
 
 const STAFF = ["reception", "dentist", "admin"];
 const LOADABLE = ["confirmed", "checked_in", "in_progress"];

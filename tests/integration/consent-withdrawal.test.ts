@@ -18,12 +18,17 @@ async function rejection(p: Promise<unknown>) {
 
 let templateId: string;
 async function signedConsent(signedAt: Date, status: Appointment["status"] = "confirmed") {
-  const { visit } = await createVisit(t, { startsAt: new Date(Date.now() + 72 * HOUR), status });
-  return Consent.create({
-    clinicId: t.clinic.id, appointmentId: visit.id, patientId: visit.patientId, status: "signed", templateId, templateVersion: 1,
+  // The database lets treatment start only on a reviewed consent, so a visit under way gets one.
+  const treating = status === "in_progress" || status === "completed";
+  const { visit } = await createVisit(t, { startsAt: new Date(Date.now() + 72 * HOUR), status: treating ? "checked_in" : status });
+  const consent = await Consent.create({
+    clinicId: t.clinic.id, appointmentId: visit.id, patientId: visit.patientId, status: treating ? "reviewed" : "signed", templateId, templateVersion: 1,
     answers: {} as never, acknowledged: [], electronicRecordsVersion: "test", consentText: "Consent text", textSha256: "a".repeat(64),
     typedName: "Test Patient", signaturePng: Buffer.from([137, 80, 78, 71]), signedAt,
+    ...(treating ? { reviewedAt: new Date(signedAt.getTime() + HOUR), reviewedBy: t.staff.dentist.id } : {}),
   });
+  if (treating) await visit.update({ status });
+  return consent;
 }
 
 beforeAll(async () => {
