@@ -19,6 +19,10 @@ export class Clinic extends Model<InferAttributes<Clinic>, InferCreationAttribut
   declare phone: string | null;
   declare currency: CreationOptional<string>;
   declare settings: CreationOptional<ClinicSettingsJson>;
+  declare depositKind: CreationOptional<"none" | "fixed" | "percent">;
+  /** Cents for a fixed deposit, whole percent of the patient's share for a percentage. */
+  declare depositValue: CreationOptional<number>;
+  declare depositRefundHours: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -33,6 +37,9 @@ Clinic.init(
     phone: DataTypes.TEXT,
     currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: "CAD" },
     settings: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    depositKind: { type: DataTypes.TEXT, allowNull: false, defaultValue: "none" },
+    depositValue: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    depositRefundHours: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 48 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
