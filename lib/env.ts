@@ -14,6 +14,10 @@ const schema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
   SEAL_CERT_PATH: z.string().optional(),
   SEAL_CERT_PASSWORD: z.string().optional(),
+  // The payment service: the official SDK, pointed at the local fake by STRIPE_API_URL.
+  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_SECRET_KEY must be a secret key (sk_test_… or sk_live_…)" }),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_WEBHOOK_SECRET must be a webhook signing secret (whsec_…)" }),
+  STRIPE_API_URL: z.string().url({ message: "STRIPE_API_URL must be a URL such as http://127.0.0.1:12111" }).optional(),
 });
 
 export type Env = z.infer<typeof schema>;

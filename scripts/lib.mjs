@@ -255,7 +255,7 @@ export function bin(name) {
 }
 
 /** Environment shared by the app, the worker and the scripts for one set-up (demo or test). */
-export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port }) {
+export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port, paymentPort }) {
   return {
     NEXT_TELEMETRY_DISABLED: "1",
     DATABASE_URL: process.env.DATABASE_URL ?? databaseUrl(db),
@@ -273,6 +273,10 @@ export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port }) {
     S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
     SEAL_CERT_PATH: process.env.SEAL_CERT_PATH ?? path.join(dataDir, "seal", "clinic-seal.p12"),
     SEAL_CERT_PASSWORD: process.env.SEAL_CERT_PASSWORD ?? localSecret("seal"),
+    // Local secrets for the payment fake; a real deployment sets its own and leaves STRIPE_API_URL unset.
+    STRIPE_SECRET_KEY: process.env.STRIPE_SECRET_KEY ?? `sk_test_${localSecret("payment-key")}`,
+    STRIPE_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET ?? `whsec_${localSecret("payment-webhook")}`,
+    STRIPE_API_URL: process.env.STRIPE_API_URL ?? `http://127.0.0.1:${paymentPort}`,
   };
 }
 
@@ -288,5 +292,18 @@ export async function startStorage({ port, name = "storage" }) {
   return startService(name, process.execPath, [path.join(root, "scripts", "storage.mjs")], {
     port,
     env: { S3_PORT: String(port), S3_DIR: dir, S3_BUCKET: process.env.S3_BUCKET ?? "cuspal-documents" },
+  });
+}
+
+/** The local stand-in for the payment service (scripts/payment-fake.mjs), sending webhooks to the app. */
+export async function startPaymentFake({ port, env, name = "payment-fake" }) {
+  return startService(name, process.execPath, [path.join(root, "scripts", "payment-fake.mjs")], {
+    port,
+    env: {
+      PAYMENT_FAKE_PORT: String(port),
+      STRIPE_SECRET_KEY: env.STRIPE_SECRET_KEY,
+      STRIPE_WEBHOOK_SECRET: env.STRIPE_WEBHOOK_SECRET,
+      PAYMENT_FAKE_WEBHOOK_URL: `${env.APP_URL.replace(/\/$/, "")}/api/payments/webhook`,
+    },
   });
 }

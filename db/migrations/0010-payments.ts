@@ -59,9 +59,10 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
     );
     CREATE INDEX desk_payments_appointment ON desk_payments (appointment_id);
 
-    -- A dental-plan estimate for one visit, entered by staff or the patient. Never the plan's decision.
+    -- A dental-plan estimate for one crown proposal (so each material's share can be shown before
+    -- booking), entered by staff or the patient. Never the plan's decision.
     CREATE TABLE plan_estimates (
-      appointment_id uuid PRIMARY KEY REFERENCES appointments(id) ON DELETE CASCADE,
+      proposal_id uuid PRIMARY KEY REFERENCES proposals(id) ON DELETE CASCADE,
       coverage_percent integer NOT NULL CHECK (coverage_percent BETWEEN 0 AND 100),
       deductible_remaining_cents integer NOT NULL CHECK (deductible_remaining_cents >= 0),
       annual_max_remaining_cents integer NOT NULL CHECK (annual_max_remaining_cents >= 0),
