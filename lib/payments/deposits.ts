@@ -4,10 +4,10 @@
 // transaction that makes it; the e-mail receipts go through the mail outbox in that transaction too.
 import "server-only";
 import { QueryTypes, type Transaction } from "sequelize";
-import { Appointment, Clinic, Reservation, sequelize } from "@/db/models";
+import { Appointment, Clinic, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { assertCanSee } from "@/lib/data/access";
-import { depositFor, depositRefundable, estimatePlanShare, UNPAID_HOLD_MINUTES, type DepositPolicy } from "@/lib/domain/money";
+import { depositFor, depositRefundable, estimatePlanShare, type DepositPolicy } from "@/lib/domain/money";
 import { env } from "@/lib/env";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { recordAudit } from "@/lib/server/audit";
@@ -224,41 +224,4 @@ export async function waiveDeposit(actor: Actor, appointmentId: string, reason: 
     await recordAudit({ clinicId: deposit.clinicId, actorUserId: actor.user.id, action: "deposit.waived", subjectType: "appointment", subjectId: visit!.id, ip: actor.ip, userAgent: actor.userAgent, data: { depositId: deposit.id, reason } }, transaction);
     return { ...deposit, status: "waived" as const };
   });
-}
-
-export const HOLD_RELEASED_REASON = `The deposit was not paid within ${UNPAID_HOLD_MINUTES} minutes of booking, so the time was released. You are welcome to book again.`;
-
-/**
- * The job: unpaid bookings older than the hold let go of their equipment. The visit is cancelled
- * (the cancellation e-mail tells the patient why), its reservations turn inactive so the time is
- * offered again, and the deposit is marked released. `now` is a parameter so tests control time.
- */
-export async function releaseUnpaidHolds(opts: { now?: Date; clinicId?: string } = {}): Promise<number> {
-  const now = opts.now ?? new Date();
-  const cutoff = new Date(now.getTime() - UNPAID_HOLD_MINUTES * 60_000);
-  const due = await sequelize.query<{ id: string }>(
-    `SELECT d.id FROM deposits d JOIN appointments a ON a.id = d.appointment_id
-      WHERE d.status = 'due' AND d.created_at <= $1 AND a.status = 'requested' AND ($2::uuid IS NULL OR d.clinic_id = $2::uuid)
-      ORDER BY d.created_at LIMIT 100`,
-    { bind: [cutoff, opts.clinicId ?? null], type: QueryTypes.SELECT },
-  );
-  let released = 0;
-  for (const { id } of due) {
-    await sequelize.transaction(async (transaction) => {
-      // SKIP LOCKED: a webhook marking this deposit paid right now wins, and two workers share the list.
-      const [deposit] = await sequelize.query<DepositRow>(`SELECT ${COLUMNS} FROM deposits WHERE id = $1 AND status = 'due' AND created_at <= $2 FOR UPDATE SKIP LOCKED`, {
-        bind: [id, cutoff], transaction, type: QueryTypes.SELECT,
-      });
-      if (!deposit) return;
-      const visit = await Appointment.findByPk(deposit.appointmentId, { transaction, lock: transaction.LOCK.UPDATE });
-      if (!visit || visit.status !== "requested") return;
-      await visit.update({ status: "cancelled", statusReason: HOLD_RELEASED_REASON }, { transaction });
-      await Reservation.update({ active: false }, { where: { appointmentId: visit.id }, transaction });
-      await setDeposit(deposit.id, { status: "released", closed_reason: "Not paid in time." }, transaction);
-      await recordAudit({ clinicId: deposit.clinicId, actorUserId: null, action: "deposit.released", subjectType: "appointment", subjectId: visit.id, data: { depositId: deposit.id, holdMinutes: UNPAID_HOLD_MINUTES } }, transaction);
-      await recordAudit({ clinicId: deposit.clinicId, actorUserId: null, action: "visit.cancelled", subjectType: "appointment", subjectId: visit.id, data: { from: "requested", to: "cancelled", reason: "deposit not paid in time" } }, transaction);
-      released += 1;
-    });
-  }
-  return released;
 }

@@ -11,7 +11,8 @@ import { bookVisit } from "@/lib/booking/book";
 import { searchSlots } from "@/lib/booking/search";
 import { cancelVisit, declineVisit } from "@/lib/booking/transitions";
 import { payments } from "@/lib/payments/client";
-import { depositOf, releaseUnpaidHolds, startCheckout } from "@/lib/payments/deposits";
+import { depositOf, startCheckout } from "@/lib/payments/deposits";
+import { releaseUnpaidHolds } from "@/lib/payments/release";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
 
 const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
