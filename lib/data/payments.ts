@@ -2,14 +2,17 @@
 // table; plan estimates and desk payments. Each function checks who may see or change the row.
 import "server-only";
 import { QueryTypes } from "sequelize";
-import { Clinic, Material, Proposal, sequelize } from "@/db/models";
+import { Clinic, Material, Patient, Proposal, User, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { findVisitFor } from "@/lib/booking/transitions";
-import { balanceDue, type DepositStatus } from "@/lib/domain/money";
+import { balanceDue, receiptNumber, type DepositStatus } from "@/lib/domain/money";
 import { deskPaymentSchema, planEstimateSchema } from "@/lib/domain/payment-schemas";
+import { describeTooth } from "@/lib/domain/tooth";
+import { money, when } from "@/lib/format";
 import { depositOf, patientShareFor } from "@/lib/payments/deposits";
+import { buildReceiptPdf } from "@/lib/payments/receipt-pdf";
 import { recordAudit } from "@/lib/server/audit";
-import { forbidden } from "@/lib/server/errors";
+import { forbidden, notFound } from "@/lib/server/errors";
 import { assertCanSee } from "./access";
 
 type Actor = { user: SessionUser; ip?: string; userAgent?: string };
@@ -182,3 +185,33 @@ export async function saveDepositPolicy(actor: Actor, policy: { kind: "none" | "
   });
 }
 
+
+/** The PDF receipt for a visit's deposit, once it has been paid (it shows the refund too, if any). */
+export async function getDepositReceipt(actor: Actor, id: string) {
+  const visit = await findVisitFor(actor, id);
+  const deposit = await depositOf(visit.id);
+  if (!deposit || !deposit.paidAt) throw notFound("A paid deposit for that visit");
+  const [clinic, material, patient] = await Promise.all([
+    Clinic.findByPk(visit.clinicId),
+    Material.findByPk(visit.materialId),
+    Patient.findByPk(visit.patientId, { include: [{ model: User, as: "user", attributes: ["name"] }] }),
+  ]);
+  const zone = clinic!.timeZone;
+  const rows: [string, string][] = [
+    ["Deposit paid", money(deposit.amountCents, deposit.currency)],
+    ["Paid on", when(deposit.paidAt, zone)],
+    ["Paid through", "Online card payment"],
+  ];
+  if (deposit.status === "refunded") rows.push(["Refunded", `${money(deposit.amountCents, deposit.currency)} on ${deposit.refundedAt ? when(deposit.refundedAt, zone) : "—"}`]);
+  rows.push(["Visit fee", money(visit.feeCents, clinic!.currency)]);
+  const number = receiptNumber(deposit.id, deposit.status === "refunded" ? "refunded" : "paid");
+  const bytes = await buildReceiptPdf({
+    clinic: { name: clinic!.name, address: clinic!.address, phone: clinic!.phone },
+    patientName: patient?.user?.name ?? "",
+    receiptNumber: number,
+    visitText: `${when(visit.startsAt, zone)} · ${describeTooth(visit.tooth).words} · ${material?.name ?? ""}`,
+    rows,
+    issuedAt: new Date(),
+  });
+  return { bytes, filename: `receipt-${number}.pdf` };
+}

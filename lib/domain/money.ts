@@ -72,3 +72,8 @@ export const DEPOSIT_WORDS: Record<DepositStatus, string> = {
 
 /** How long an unpaid booking holds the chair, mill and furnace. */
 export const UNPAID_HOLD_MINUTES = 30;
+
+/** A short, stable receipt number from the deposit id: "D-1A2B3C4D-P" for a payment, "-R" for its refund. */
+export function receiptNumber(depositId: string, kind: "paid" | "refunded"): string {
+  return `D-${depositId.replace(/-/g, "").slice(0, 8).toUpperCase()}-${kind === "paid" ? "P" : "R"}`;
+}

@@ -32,6 +32,18 @@ vi.mock("@/lib/auth/session", async () => {
 const { POST: webhookRoute } = await import("@/app/api/payments/webhook/route");
 const { GET: visitRoute } = await import("@/app/api/appointments/[id]/route");
 const { GET: paymentsRoute } = await import("@/app/api/payments/route");
+const { GET: receiptRoute } = await import("@/app/api/appointments/[id]/receipt/route");
+
+async function pdfText(bytes: Uint8Array): Promise<string> {
+  const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
+  const doc = await pdfjs.getDocument({ data: bytes, useSystemFonts: false, isEvalSupported: false }).promise;
+  const parts: string[] = [];
+  for (let i = 1; i <= doc.numPages; i++) {
+    const content = await (await doc.getPage(i)).getTextContent();
+    parts.push(content.items.map((it) => ("str" in it ? it.str : "")).join(" "));
+  }
+  return parts.join("\n");
+}
 
 const now = new Date("2027-03-01T12:00:00Z");
 let t: TestClinic;
@@ -148,6 +160,22 @@ describe("webhook", () => {
     expect(again).toEqual({ status: 200, body: { received: true, outcome: "duplicate" } });
     expect(await outboxKinds(visit.id)).toEqual(["deposit_paid"]);
     expect(await auditCount(visit.id, "deposit.paid")).toBe(1);
+
+    // The PDF receipt, read back by an independent parser (pdfjs-dist); the amount as Intl formats CAD in en-CA.
+    auth.user = asUser(t.staff.reception);
+    const res = await receiptRoute(new NextRequest(`http://localhost/api/appointments/${visit.id}/receipt`), { params: Promise.resolve({ id: visit.id }) });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/pdf");
+    const text = await pdfText(new Uint8Array(await res.arrayBuffer()));
+    expect(text).toContain("Deposit receipt");
+    expect(text).toContain("$200.00");
+  });
+
+  it("has no receipt before a payment (404)", async () => {
+    const { actor, visit } = await bookOne();
+    auth.user = actor.user;
+    const res = await receiptRoute(new NextRequest(`http://localhost/api/appointments/${visit.id}/receipt`), { params: Promise.resolve({ id: visit.id }) });
+    expect(res.status).toBe(404);
   });
 
   it("ignores a session whose amount is not the deposit's", async () => {
