@@ -16,13 +16,15 @@ type Props = {
   role: string;
   patients: { id: string; name: string }[];
   dentists: { id: string; name: string }[];
-  materials: { id: string; name: string; toothClasses: string[]; modes: Mode[] }[];
+  materials: { id: string; name: string; toothClasses: string[]; modes: Mode[]; listFee: string }[];
 };
 
 export function ProposalForm({ role, patients, dentists, materials }: Props) {
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [allowed, setAllowed] = useState<Record<string, Mode[]>>({});
+  // Fees start at the clinic's list price; the dentist may change them per proposal.
+  const [fees, setFees] = useState<Record<string, string>>(() => Object.fromEntries(materials.map((m) => [m.id, m.listFee])));
   const { register, handleSubmit, control, setValue, formState } = useForm<Input, unknown, Output>({
     resolver: zodResolver(proposalSchema),
     defaultValues: { options: [], note: "" },
@@ -31,11 +33,21 @@ export function ProposalForm({ role, patients, dentists, materials }: Props) {
   const toothInfo = tooth && isValidFdi(String(tooth)) ? describeTooth(Number(tooth)) : null;
   const { errors, isSubmitting } = formState;
 
+  function sync(nextAllowed: Record<string, Mode[]>, nextFees: Record<string, string>) {
+    setValue("options", Object.entries(nextAllowed).map(([id, modes]) => ({ materialId: id, modes, ...(nextFees[id]?.trim() ? { fee: Number(nextFees[id].trim()) } : {}) })), { shouldValidate: formState.isSubmitted });
+  }
+
   function toggle(materialId: string, mode: Mode, on: boolean) {
     const next = { ...allowed, [materialId]: on ? [...(allowed[materialId] ?? []), mode] : (allowed[materialId] ?? []).filter((m) => m !== mode) };
     if (!next[materialId].length) delete next[materialId];
     setAllowed(next);
-    setValue("options", Object.entries(next).map(([id, modes]) => ({ materialId: id, modes })), { shouldValidate: formState.isSubmitted });
+    sync(next, fees);
+  }
+
+  function setFee(materialId: string, value: string) {
+    const next = { ...fees, [materialId]: value };
+    setFees(next);
+    sync(allowed, next);
   }
 
   const onSubmit = handleSubmit(async (values) => {
@@ -89,6 +101,12 @@ export function ProposalForm({ role, patients, dentists, materials }: Props) {
                     </label>
                   ))}
                 </div>
+                {allowed[m.id] ? (
+                  <div className="mt-2">
+                    <label htmlFor={`fee-${m.id}`} className="text-sm font-semibold">Fee for {m.name} (CAD)</label>
+                    <input id={`fee-${m.id}`} inputMode="decimal" className="field-input" value={fees[m.id] ?? ""} placeholder="Proposal fee below" onChange={(e) => setFee(m.id, e.target.value)} />
+                  </div>
+                ) : null}
               </div>
             );
           })}
