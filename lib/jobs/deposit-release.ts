@@ -1,4 +1,4 @@
-// The hold-release job on pg-boss: at most one run a minute across all workers (a singleton job),
+// The hold-release job on pg-boss: at most one run every few seconds across all workers (a singleton job),
 // each releasing unpaid bookings older than the hold (lib/payments/deposits.ts releaseUnpaidHolds).
 import { getBoss } from "./mail-queue";
 import { releaseUnpaidHolds } from "@/lib/payments/release";
@@ -13,7 +13,7 @@ export async function runDepositRelease(now = new Date()): Promise<number> {
     await boss.createQueue(RELEASE_QUEUE, { name: RELEASE_QUEUE, retryLimit: 3, retryDelay: 30, expireInSeconds: 120 });
     created = true;
   }
-  await boss.send(RELEASE_QUEUE, {}, { singletonKey: RELEASE_QUEUE, singletonSeconds: 60 });
+  await boss.send(RELEASE_QUEUE, {}, { singletonKey: RELEASE_QUEUE, singletonSeconds: 5 });
   const jobs = await boss.fetch(RELEASE_QUEUE, { batchSize: 1 });
   let released = 0;
   for (const job of jobs) {
