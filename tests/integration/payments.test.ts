@@ -5,7 +5,9 @@
 import { NextRequest } from "next/server";
 import { QueryTypes } from "sequelize";
 import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
-import { AuditEvent, Clinic, Reservation, sequelize } from "@/db/models";
+import { AuditEvent, Clinic, Material, ProposalMaterial, Reservation, sequelize } from "@/db/models";
+import { proposalSchema } from "@/lib/booking/schemas";
+import { createProposal } from "@/lib/data/proposals";
 import type { SessionUser } from "@/lib/auth/session";
 import { bookVisit } from "@/lib/booking/book";
 import { searchSlots } from "@/lib/booking/search";
@@ -300,5 +302,20 @@ describe("payments list", () => {
     const patient = await createTestPatient(t.clinic.id);
     auth.user = asUser(patient.user);
     expect((await paymentsRoute(new NextRequest("http://localhost/api/payments"), undefined)).status).toBe(403);
+  });
+});
+
+describe("fees per material", () => {
+  it("start at the clinic's list price, the dentist may change one, and the visit keeps the chosen material's fee", async () => {
+    const zr = t.materialByKey["zirconia"].id;
+    const ld = t.materialByKey["lithium-disilicate"].id;
+    await Material.update({ listFeeCents: 145_000 }, { where: { id: zr } });
+    const { user, patient } = await createTestPatient(t.clinic.id);
+    const input = proposalSchema.parse({ patientId: patient.id, tooth: "36", fee: "1200", options: [{ materialId: zr, modes: ["standard"] }, { materialId: ld, modes: ["standard"], fee: "1600.50" }] });
+    const proposal = await createProposal({ user: asUser(t.staff.dentist), input });
+    const options = await ProposalMaterial.findAll({ where: { proposalId: proposal.id } });
+    expect(Object.fromEntries(options.map((o) => [o.materialId, o.feeCents]))).toEqual({ [zr]: 145_000, [ld]: 160_050 });
+    const visit = await bookVisit({ proposalId: proposal.id, materialId: ld, mode: "standard", start: nextStart(), actor: { user: asUser(user) }, now });
+    expect(visit.feeCents).toBe(160_050);
   });
 });
