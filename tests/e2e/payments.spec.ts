@@ -2,7 +2,7 @@
 // SDK (a declined card first), sees it paid, gets the receipt by e-mail; the clinic declines and the
 // deposit comes back with a refund receipt; an unpaid booking's hold is released and its time offered again.
 import { expect, test, type APIRequestContext, type Browser, type Page } from "@playwright/test";
-import { query, signIn } from "./support";
+import { expectNoAxeViolations, query, signIn } from "./support";
 
 const catcher = process.env.MAIL_CATCHER_URL;
 type Caught = { subject: string; time: string; to: { address: string }[]; headers: Record<string, string> };
@@ -58,6 +58,7 @@ test.describe("deposits", () => {
     const visitId = await book(page, proposalId);
     await expect(page.getByTestId("deposit-status")).toHaveText(/Deposit due · \$200\.00/);
     await page.screenshot({ path: "test-results/deposit-due-390.png", fullPage: true });
+    await expectNoAxeViolations(page);
 
     await page.getByRole("button", { name: "Pay the $200.00 deposit" }).click();
     await expect(page.getByRole("heading", { name: "Pay 200.00 CAD" })).toBeVisible();
@@ -83,6 +84,20 @@ test.describe("deposits", () => {
     await expect.poll(async () => (await query<{ status: string }>("SELECT status FROM deposits WHERE appointment_id = $1", [visitId]))[0].status).toBe("refunded");
     await mailFor(request, visitId, /^Refund receipt: your \$200\.00 deposit/);
     expect(await query("SELECT 1 FROM audit_events WHERE subject_id = $1 AND action = 'deposit.refunded'", [visitId])).toHaveLength(1);
+
+    // Staff screens: the visit's money block, the payments table, and the manager's settings.
+    await reception.goto(`/clinic/visits/${visitId}`);
+    await expect(reception.getByTestId("deposit-status")).toHaveText(/Deposit refunded · \$200\.00/);
+    await reception.screenshot({ path: "test-results/staff-visit-money-1280.png", fullPage: true });
+    await reception.goto("/clinic/payments?status=refunded");
+    await expect(reception.getByTestId("payment-totals")).toContainText("Deposit refunded: $");
+    await expectNoAxeViolations(reception);
+    await reception.screenshot({ path: "test-results/staff-payments-1280.png", fullPage: true });
+    const manager = await signedInPage(browser, "admin@cuspal.test", { width: 1280, height: 900 });
+    await manager.goto("/clinic/settings/payments");
+    await expect(manager.getByLabel("Fixed amount (CAD)")).toHaveValue("200.00");
+    await expect(manager.getByLabel("Zirconia")).toHaveValue("1450.00");
+    await manager.screenshot({ path: "test-results/settings-payments-1280.png", fullPage: true });
 
     // Book again and leave it unpaid; age the deposit past the 30-minute hold; the worker's job releases it.
     const unpaidId = await book(page, proposalId);
