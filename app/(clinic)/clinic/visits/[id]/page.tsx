@@ -61,7 +61,7 @@ export default async function ClinicVisitPage({ params }: { params: Promise<{ id
       <VisitMoney m={m} zone={zone}>
         {m.deposit.paidAt ? <p className="text-sm"><a className="underline" href={`/api/appointments/${visit.id}/receipt`} download>Deposit receipt (PDF)</a></p> : null}
         {reception && m.deposit.status === "due" && visit.status === "requested" ? <PayDepositButton visitId={visit.id} label="Take the deposit now (card at the desk)" /> : null}
-        {reception ? <DeskActions visitId={visit.id} canWaive={m.deposit.status === "due"} suggestedAmount={m.balanceDueCents ? (m.balanceDueCents / 100).toFixed(2) : ""} /> : null}
+        {reception && !["declined", "cancelled", "no_show"].includes(visit.status) ? <DeskActions visitId={visit.id} canWaive={m.deposit.status === "due"} suggestedAmount={m.balanceDueCents ? (m.balanceDueCents / 100).toFixed(2) : ""} /> : null}
       </VisitMoney>
       <ConsentLink user={user} visitId={visit.id} />
       <section className="card space-y-3" aria-labelledby="timeline">
