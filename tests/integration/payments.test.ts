@@ -35,6 +35,7 @@ const { POST: webhookRoute } = await import("@/app/api/payments/webhook/route");
 const { GET: visitRoute } = await import("@/app/api/appointments/[id]/route");
 const { GET: paymentsRoute } = await import("@/app/api/payments/route");
 const { GET: receiptRoute } = await import("@/app/api/appointments/[id]/receipt/route");
+const { PUT: planRoute } = await import("@/app/api/proposals/[id]/plan-estimate/route");
 
 async function pdfText(bytes: Uint8Array): Promise<string> {
   const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
@@ -317,5 +318,25 @@ describe("fees per material", () => {
     expect(Object.fromEntries(options.map((o) => [o.materialId, o.feeCents]))).toEqual({ [zr]: 145_000, [ld]: 160_050 });
     const visit = await bookVisit({ proposalId: proposal.id, materialId: ld, mode: "standard", start: nextStart(), actor: { user: asUser(user) }, now });
     expect(visit.feeCents).toBe(160_050);
+  });
+});
+
+describe("dental-plan estimate", () => {
+  it("the patient saves their figures; the visit shows the estimated shares; others get 404", async () => {
+    const { actor, visit, proposal } = await bookOne();
+    const put = (body: unknown) => planRoute(new NextRequest(`http://localhost/api/proposals/${proposal.id}/plan-estimate`, { method: "PUT", body: JSON.stringify(body) }), { params: Promise.resolve({ id: proposal.id }) });
+    auth.user = actor.user;
+    const bad = await put({ coveragePercent: 150, deductibleRemaining: "0", annualMaxRemaining: "0" });
+    expect(bad.status).toBe(400);
+    expect((await bad.json()).field).toBe("coveragePercent");
+    expect((await put({ coveragePercent: 50, deductibleRemaining: "50", annualMaxRemaining: "1500" })).status).toBe(200);
+    const res = await visitRoute(new NextRequest(`http://localhost/api/appointments/${visit.id}`), { params: Promise.resolve({ id: visit.id }) });
+    const body = await res.json();
+    // [C] common practice of dental-plan arithmetic, computed by hand: (120 000 − 5 000) × 0.50 = 57 500 ¢ plan; 62 500 ¢ patient.
+    expect(body).toMatchObject({ feeCents: 120_000, planShareEstimateCents: 57_500, patientShareCents: 62_500, balanceDueCents: 62_500 });
+    expect(await auditCount(proposal.id, "plan_estimate.saved")).toBe(1);
+    const stranger = await createTestPatient(t.clinic.id);
+    auth.user = asUser(stranger.user);
+    expect((await put({ coveragePercent: 10, deductibleRemaining: "0", annualMaxRemaining: "0" })).status).toBe(404);
   });
 });

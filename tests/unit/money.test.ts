@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { balanceDue, depositFor, depositRefundable, estimatePlanShare } from "@/lib/domain/money";
+import { centsFromText, depositPolicySchema, planEstimateSchema } from "@/lib/domain/payment-schemas";
 
 describe("dental-plan estimate", () => {
   it("fee 1 400.00, deductible 50.00 left, 50 % coverage, ample maximum", () => {
@@ -71,5 +72,26 @@ describe("deposit", () => {
   it("balance due after deposit and desk payments", () => {
     expect(balanceDue({ patientShareCents: 72_500, depositPaidCents: 20_000, deskPaidCents: 30_000 })).toBe(22_500);
     expect(balanceDue({ patientShareCents: 10_000, depositPaidCents: 20_000, deskPaidCents: 0 })).toBe(0);
+  });
+});
+
+describe("amounts typed by people", () => {
+  it("become integer cents without floating-point steps", () => {
+    const amount = centsFromText("the amount");
+    expect(amount.parse("200")).toBe(20_000);
+    expect(amount.parse("1,234.5")).toBe(123_450);
+    // 0.29 × 100 is 28.999… in binary floating point; the text is split instead.
+    expect(amount.parse("0.29")).toBe(29);
+    expect(amount.safeParse("12.345").success).toBe(false);
+    expect(amount.safeParse("-5").success).toBe(false);
+  });
+
+  it("parses the deposit policy and the plan figures", () => {
+    expect(depositPolicySchema.parse({ kind: "fixed", fixedAmount: "200", refundHours: "48" })).toEqual({ kind: "fixed", value: 20_000, refundHours: 48 });
+    expect(depositPolicySchema.parse({ kind: "percent", percent: "25", refundHours: "24" })).toEqual({ kind: "percent", value: 25, refundHours: 24 });
+    expect(depositPolicySchema.safeParse({ kind: "fixed", refundHours: "48" }).success).toBe(false);
+    expect(planEstimateSchema.parse({ coveragePercent: "50", deductibleRemaining: "50", annualMaxRemaining: "1500" }))
+      .toEqual({ coveragePercent: 50, deductibleRemaining: 5_000, annualMaxRemaining: 150_000, preauthReference: null });
+    expect(planEstimateSchema.safeParse({ coveragePercent: "120", deductibleRemaining: "0", annualMaxRemaining: "0" }).success).toBe(false);
   });
 });
