@@ -62,7 +62,7 @@ export default async function PatientVisitPage({ params, searchParams }: { param
         {visit.statusReason ? <p className="mt-2 text-sm">Note from the clinic: {visit.statusReason}</p> : null}
       </section>
       <VisitMoney m={m} zone={zone} returned={returned === "returned"}>
-        {m.deposit.status === "due" && visit.status === "requested" ? <PayDepositButton visitId={visit.id} label={`Pay the ${money(m.deposit.amountCents, m.deposit.currency)} deposit`} /> : null}
+        {m.deposit.status === "due" && active ? <PayDepositButton visitId={visit.id} label={`Pay the ${money(m.deposit.amountCents, m.deposit.currency)} deposit`} /> : null}
         {m.deposit.paidAt ? <p><a className="underline" href={`/api/appointments/${visit.id}/receipt`} download>Download the receipt (PDF)</a></p> : null}
         {active ? (
           <details className="text-sm">
