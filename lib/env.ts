@@ -25,6 +25,10 @@ const base = z.object({
   /** Proxies whose X-Forwarded-For hops are believed: comma-separated IPs or CIDRs (lib/server/client-ip.ts). */
   TRUSTED_PROXIES: z.string().default(""),
   SEAL_CERT_PASSWORD: z.string().optional(),
+  // The payment service: the official SDK, pointed at the local fake by STRIPE_API_URL.
+  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_SECRET_KEY must be a secret key (sk_test_… or sk_live_…)" }),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_WEBHOOK_SECRET must be a webhook signing secret (whsec_…)" }),
+  STRIPE_API_URL: z.string().url({ message: "STRIPE_API_URL must be a URL such as http://127.0.0.1:12111" }).optional(),
 });
 
 const present = (name: string) => z.string({ message: `${name} must be set in production` }).min(1, { message: `${name} must be set in production` });

@@ -2,11 +2,11 @@
 import { spawn } from "node:child_process";
 import {
   appEnv, bin, ensureDatabases, ensureDependencies, ensurePostgres, mustRun, root, say,
-  startMailCatcher, startService, startStorage,
+  startMailCatcher, startPaymentFake, startService, startStorage,
 } from "./lib.mjs";
 
 const appPort = Number(process.env.PORT ?? 3000);
-const ports = { db: "cuspal", appPort, smtpPort: 1025, mailWebPort: 1080, s3Port: 4569 };
+const ports = { db: "cuspal", appPort, smtpPort: 1025, mailWebPort: 1080, s3Port: 4569, paymentPort: 12111 };
 
 ensureDependencies();
 await ensurePostgres();
@@ -21,6 +21,7 @@ mustRun(bin("tsx"), ["db/seed.ts"], { env });
 
 await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort });
 await startStorage({ port: ports.s3Port, keys: env });
+await startPaymentFake({ port: ports.paymentPort, env });
 await startService("worker", bin("tsx"), ["lib/jobs/worker-main.ts"], { env });
 
 say("Building the app…");
@@ -30,6 +31,7 @@ console.log(`
 Cuspal is starting on http://localhost:${appPort}
   mail catcher     http://127.0.0.1:${ports.mailWebPort}
   storage fake     http://127.0.0.1:${ports.s3Port}
+  payment fake     http://127.0.0.1:${ports.paymentPort} (test card 4242 4242 4242 4242; 4000 0000 0000 0002 is declined)
 
 Demo accounts (invented people), password: cuspal-demo
   patient@cuspal.test     patient (open crown proposal)
@@ -37,7 +39,7 @@ Demo accounts (invented people), password: cuspal-demo
   dentist@cuspal.test     dentist
   admin@cuspal.test       clinic manager
 
-Stop the app with Ctrl-C, then \`npm run stop\` stops PostgreSQL, the mail catcher, the storage fake and the worker.
+Stop the app with Ctrl-C, then \`npm run stop\` stops PostgreSQL, the mail catcher, the storage fake, the payment fake and the worker.
 `);
 
 const app = spawn(process.execPath, ["scripts/serve.mjs", "-p", String(appPort), "-H", "0.0.0.0"], { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "inherit" });

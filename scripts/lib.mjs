@@ -281,7 +281,7 @@ export function bin(name) {
 // DATABASE_URL is the app's (and the worker's) connection; OWNER_DATABASE_URL the one migrations and
 // the seed use. Someone with their own PostgreSQL sets DATABASE_URL (and OWNER_DATABASE_URL when
 // the app should connect as a lesser role than the one that owns the tables).
-export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port }) {
+export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port, paymentPort }) {
   return {
     NEXT_TELEMETRY_DISABLED: "1",
     DATABASE_URL: process.env.DATABASE_URL ?? appDatabaseUrl(db),
@@ -302,6 +302,10 @@ export function appEnv({ db, appPort, smtpPort, mailWebPort, s3Port }) {
     S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? localSecret("storage"),
     SEAL_CERT_PATH: process.env.SEAL_CERT_PATH ?? path.join(dataDir, "seal", "clinic-seal.p12"),
     SEAL_CERT_PASSWORD: process.env.SEAL_CERT_PASSWORD ?? localSecret("seal"),
+    // Local secrets for the payment fake; a real deployment sets its own and leaves STRIPE_API_URL unset.
+    STRIPE_SECRET_KEY: process.env.STRIPE_SECRET_KEY ?? `sk_test_${localSecret("payment-key")}`,
+    STRIPE_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET ?? `whsec_${localSecret("payment-webhook")}`,
+    STRIPE_API_URL: process.env.STRIPE_API_URL ?? `http://127.0.0.1:${paymentPort}`,
   };
 }
 
@@ -320,6 +324,19 @@ export async function startStorage({ port, name = "storage", keys }) {
     env: {
       S3_PORT: String(port), S3_DIR: dir, S3_BUCKET: process.env.S3_BUCKET ?? "cuspal-documents",
       S3_ACCESS_KEY_ID: keys.S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY: keys.S3_SECRET_ACCESS_KEY,
+    },
+  });
+}
+
+/** The local stand-in for the payment service (scripts/payment-fake.mjs), sending webhooks to the app. */
+export async function startPaymentFake({ port, env, name = "payment-fake" }) {
+  return startService(name, process.execPath, [path.join(root, "scripts", "payment-fake.mjs")], {
+    port,
+    env: {
+      PAYMENT_FAKE_PORT: String(port),
+      STRIPE_SECRET_KEY: env.STRIPE_SECRET_KEY,
+      STRIPE_WEBHOOK_SECRET: env.STRIPE_WEBHOOK_SECRET,
+      PAYMENT_FAKE_WEBHOOK_URL: `${env.APP_URL.replace(/\/$/, "")}/api/payments/webhook`,
     },
   });
 }

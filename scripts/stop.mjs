@@ -1,5 +1,5 @@
-// Stops everything `npm run demo` started: the worker, the mail catcher, the storage fake and PostgreSQL.
+// Stops everything `npm run demo` started: the worker, the mail catcher, the storage fake, the payment fake and PostgreSQL.
 import { stopPostgres, stopService } from "./lib.mjs";
 
-for (const name of ["app", "worker", "mail-catcher", "storage"]) stopService(name);
+for (const name of ["app", "worker", "mail-catcher", "storage", "payment-fake"]) stopService(name);
 stopPostgres();

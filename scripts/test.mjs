@@ -5,7 +5,7 @@ import { existsSync, readFileSync, rmSync, mkdirSync } from "node:fs";
 import path from "node:path";
 import {
   appEnv, bin, dataDir, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, ensureSealValidators, mustRun,
-  run, say, startMailCatcher, startService, startStorage, stopPostgres, stopService,
+  run, say, startMailCatcher, startPaymentFake, startService, startStorage, stopPostgres, stopService,
 } from "./lib.mjs";
 
 const [only, ...extra] = process.argv.slice(2);
@@ -15,7 +15,7 @@ const wantE2e = !only || only === "e2e";
 // CUSPAL_TEST_PORT_OFFSET moves every test port, so two checkouts can run their tests at once
 // (give each its own CUSPAL_PG_PORT too).
 const offset = Number(process.env.CUSPAL_TEST_PORT_OFFSET ?? 0);
-const ports = { db: "cuspal_test", appPort: 3100 + offset, smtpPort: 1125 + offset, mailWebPort: 1180 + offset, s3Port: 4579 + offset };
+const ports = { db: "cuspal_test", appPort: 3100 + offset, smtpPort: 1125 + offset, mailWebPort: 1180 + offset, s3Port: 4579 + offset, paymentPort: 12211 + offset };
 ensureDependencies();
 if (wantE2e) ensureChromium();
 if (wantUnit) ensureSealValidators();
@@ -38,6 +38,7 @@ mustRun(bin("tsx"), ["db/migrate.ts", "up"], { env });
 mustRun(bin("tsx"), ["scripts/make-seal-certificate.ts"], { env }, "Creating the clinic seal certificate");
 await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort, name: "test-mail-catcher" });
 await startStorage({ port: ports.s3Port, name: "test-storage", keys: env });
+await startPaymentFake({ port: ports.paymentPort, env, name: "test-payment-fake" });
 
 const totals = { passed: 0, failed: 0, skipped: 0 };
 let broken = false;
@@ -98,6 +99,7 @@ try {
   stopService("test-worker");
   stopService("test-mail-catcher");
   stopService("test-storage");
+  stopService("test-payment-fake");
   if (startedPg) stopPostgres();
 }
 

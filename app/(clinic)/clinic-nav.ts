@@ -10,6 +10,7 @@ export function clinicNav(role: Role): NavItem[] {
     { href: "/clinic/board", label: "Day board", roles: ["reception", "dentist"] },
     { href: "/clinic/consents", label: "Consents", roles: ["reception", "dentist", "admin"] },
     { href: "/clinic/lots", label: "Lots", roles: ["reception", "dentist", "admin"] },
+    { href: "/clinic/payments", label: "Payments", roles: ["reception", "admin"] },
     { href: "/clinic/settings", label: "Settings", roles: ["admin"] },
     { href: "/clinic/consent-templates", label: "Consent texts", roles: ["admin"] },
   ];

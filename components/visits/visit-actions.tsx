@@ -4,10 +4,10 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { SlotPicker, type SlotOption } from "./slot-picker";
 
-type Props = { visitId: string; proposalId: string; materialId: string; mode: string; timezone: string; canChange: boolean; cutoffNote: string };
+type Props = { visitId: string; proposalId: string; materialId: string; mode: string; timezone: string; canChange: boolean; cutoffNote: string; depositNote?: string | null };
 
 /** Move or cancel a visit (patients within the clinic's cut-off; reception any time before it starts). */
-export function VisitActions({ visitId, proposalId, materialId, mode, timezone, canChange, cutoffNote }: Props) {
+export function VisitActions({ visitId, proposalId, materialId, mode, timezone, canChange, cutoffNote, depositNote }: Props) {
   const router = useRouter();
   const [panel, setPanel] = useState<"none" | "move" | "cancel">("none");
   const [slot, setSlot] = useState<SlotOption | null>(null);
@@ -51,6 +51,7 @@ export function VisitActions({ visitId, proposalId, materialId, mode, timezone, 
         <div className="card space-y-3">
           <label htmlFor="cancel-reason" className="field-label">Reason (optional)</label>
           <input id="cancel-reason" className="field-input" value={reason} maxLength={500} onChange={(e) => setReason(e.target.value)} />
+          {depositNote ? <p className="rounded-lg bg-harbour-50 p-3 text-sm font-medium" data-testid="cancel-deposit-note">{depositNote}</p> : null}
           <button type="button" className="btn-danger" disabled={busy} onClick={() => post("cancel", reason ? { reason } : {})}>Yes, cancel this visit</button>
         </div>
       ) : null}

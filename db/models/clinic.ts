@@ -21,6 +21,10 @@ export class Clinic extends Model<InferAttributes<Clinic>, InferCreationAttribut
   declare settings: CreationOptional<ClinicSettingsJson>;
   /** Staff must sign in with a one-time code besides their password (on for a new clinic). */
   declare requireTwoFactor: CreationOptional<boolean>;
+  declare depositKind: CreationOptional<"none" | "fixed" | "percent">;
+  /** Cents for a fixed deposit, whole percent of the patient's share for a percentage. */
+  declare depositValue: CreationOptional<number>;
+  declare depositRefundHours: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -36,6 +40,9 @@ Clinic.init(
     currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: "CAD" },
     settings: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     requireTwoFactor: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+    depositKind: { type: DataTypes.TEXT, allowNull: false, defaultValue: "none" },
+    depositValue: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    depositRefundHours: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 48 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

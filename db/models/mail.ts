@@ -3,6 +3,7 @@ import { sequelize } from "../sequelize";
 
 export const MAIL_KINDS = [
   "visit_requested", "visit_confirmed", "visit_moved", "visit_declined", "visit_cancelled", "reminder", "aftercare", "consent_copy",
+  "deposit_paid", "deposit_refunded",
 ] as const;
 export type MailKind = (typeof MAIL_KINDS)[number];
 

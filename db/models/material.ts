@@ -23,6 +23,8 @@ export class Material extends Model<InferAttributes<Material>, InferCreationAttr
   declare stageOrder: CreationOptional<string[]>;
   declare active: CreationOptional<boolean>;
   declare sortOrder: CreationOptional<number>;
+  /** The clinic's list price for a crown in this material (cents, clinic currency); null when not set. */
+  declare listFeeCents: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare modes?: NonAttribute<MaterialMode[]>;
@@ -54,6 +56,7 @@ Material.init(
     stageOrder: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
     active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
     sortOrder: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    listFeeCents: DataTypes.INTEGER,
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

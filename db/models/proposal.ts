@@ -43,6 +43,8 @@ export class ProposalMaterial extends Model<InferAttributes<ProposalMaterial>, I
   declare proposalId: string;
   declare materialId: string;
   declare modes: Mode[];
+  /** This material's fee for this proposal (cents); null means the proposal's fee. */
+  declare feeCents: CreationOptional<number | null>;
   declare material?: NonAttribute<Material>;
 }
 
@@ -52,6 +54,7 @@ ProposalMaterial.init(
     proposalId: { type: DataTypes.UUID, allowNull: false },
     materialId: { type: DataTypes.UUID, allowNull: false },
     modes: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
+    feeCents: DataTypes.INTEGER,
   },
   { sequelize, tableName: "proposal_materials", modelName: "proposalMaterial", timestamps: false },
 );

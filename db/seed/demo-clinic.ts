@@ -27,6 +27,16 @@ export const OTHER_PATIENTS = [
   { email: "ingrid.tamaro@cuspal.test", name: "Ingrid Tamaro", dateOfBirth: "1966-04-11", phone: null, language: "en" },
 ] as const;
 
+/** Invented list prices of a crown per material, in cents (CAD). */
+export const DEMO_LIST_PRICES: Record<string, number> = {
+  zirconia: 145_000,
+  "lithium-disilicate": 155_000,
+  "leucite-glass-ceramic": 140_000,
+  "feldspathic-ceramic": 135_000,
+  "resin-ceramic-hybrid": 120_000,
+  pmma: 35_000,
+};
+
 export async function seedClinic(transaction: Transaction) {
   const clinic = await Clinic.create(
     {
@@ -39,6 +49,10 @@ export async function seedClinic(transaction: Transaction) {
       // The demo accounts sign in with their password alone.
       requireTwoFactor: false,
       settings: { slotMinutes: 15, bufferMinutes: 10, minNoticeMinutes: 120, cancelCutoffHours: 24, reminderHoursBefore: [48, 2] },
+      // A $200 deposit when a visit is booked, refundable until 48 hours before it.
+      depositKind: "fixed",
+      depositValue: 20_000,
+      depositRefundHours: 48,
     },
     { transaction },
   );
@@ -88,6 +102,9 @@ export async function seedClinic(transaction: Transaction) {
   );
 
   await seedCatalogue(clinic.id, transaction);
+  for (const [key, cents] of Object.entries(DEMO_LIST_PRICES)) {
+    await Material.update({ listFeeCents: cents }, { where: { clinicId: clinic.id, key }, transaction });
+  }
   return { clinic, users, patient, others, equipment };
 }
 

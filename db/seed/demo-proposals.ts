@@ -7,14 +7,14 @@ import { writeSchedule } from "@/lib/booking/schedule";
 import { assign, holdsFor } from "@/lib/domain/availability";
 import { addDays, localDate, weekdayOf, zonedTime } from "@/lib/domain/time-zone";
 import type { AppointmentStatus, Mode } from "@/lib/domain/types";
-import type { seedClinic } from "./demo-clinic";
+import { DEMO_LIST_PRICES, type seedClinic } from "./demo-clinic";
 
 type Demo = Awaited<ReturnType<typeof seedClinic>>;
 const MIN = 60_000;
 
 async function propose(demo: Demo, patient: Patient, tooth: number, feeCents: number, note: string, allow: Record<string, Mode[]>, byKey: Record<string, Material>, transaction: Transaction, dentistId = demo.users.dentist.id) {
   const proposal = await Proposal.create({ clinicId: demo.clinic.id, patientId: patient.id, dentistId, tooth, feeCents, note }, { transaction });
-  await ProposalMaterial.bulkCreate(Object.entries(allow).map(([key, modes]) => ({ proposalId: proposal.id, materialId: byKey[key].id, modes })), { transaction });
+  await ProposalMaterial.bulkCreate(Object.entries(allow).map(([key, modes]) => ({ proposalId: proposal.id, materialId: byKey[key].id, modes, feeCents: DEMO_LIST_PRICES[key] ?? null })), { transaction });
   return proposal;
 }
 

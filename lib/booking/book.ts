@@ -10,6 +10,7 @@ import { assign, holdsFor, isCandidateStart, nearest, type AvailabilityRules } f
 import type { Timeline } from "@/lib/domain/timeline";
 import { addDays, isoInZone, localDate } from "@/lib/domain/time-zone";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
+import { askDeposit } from "@/lib/payments/deposits";
 import { recordAudit } from "@/lib/server/audit";
 import { AppError, badRequest, conflict, notFound } from "@/lib/server/errors";
 import { loadBusy, loadResources, loadRules, loadTimeline } from "./context";
@@ -78,7 +79,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
   await assertCanSee(actor.user, proposal, "That proposal");
   const p = proposal!;
   if (p.status !== "open") throw conflict("This proposal is closed: ask the clinic for a new one.");
-  allowedOption(p, opts.materialId, opts.mode);
+  const option = allowedOption(p, opts.materialId, opts.mode);
   const clinic = (await Clinic.findByPk(p.clinicId))!;
   const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
   assertBookableTime(await loadRules(clinic), timeline, opts.start, now);
@@ -105,12 +106,13 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
             chairId: assignment.chair!,
             millId: assignment.mill!,
             furnaceId: assignment.furnace,
-            feeCents: p.feeCents,
+            feeCents: option.feeCents ?? p.feeCents,
             remindersEnabled: patient?.reminders ?? true,
             createdBy: actor.user.id,
           },
           { transaction },
         );
+        await askDeposit(appointment, clinic, actor.user.id, transaction);
         await writeSchedule({ appointment, timeline, start: opts.start, assignment, bufferMinutes: rules.bufferMinutes, transaction });
         await recordAudit(
           { clinicId: clinic.id, actorUserId: actor.user.id, action: "visit.requested", subjectType: "appointment", subjectId: appointment.id, ip: actor.ip, userAgent: actor.userAgent, data: { start: opts.start.toISOString(), materialId: opts.materialId, mode: opts.mode } },

@@ -34,7 +34,12 @@ export const proposalSchema = z.object({
   tooth: z.coerce.number<number>({ message: "Enter the tooth as an ISO 3950 code, like 36." }).int().refine(isValidFdi, { message: "Enter a valid ISO 3950 tooth code, like 36 (11–48, or 51–85 for primary teeth)." }),
   fee: z.coerce.number<number>({ message: "Enter the fee." }).min(0, { message: "The fee cannot be negative." }).max(100_000, { message: "That fee looks too high." }),
   note: z.string().trim().max(1000, { message: "Keep the note under 1000 characters." }).optional(),
-  options: z.array(z.object({ materialId: uuid("Material"), modes: z.array(modeSchema).min(1, { message: "Allow at least one mode." }) }))
+  options: z.array(z.object({
+    materialId: uuid("Material"),
+    modes: z.array(modeSchema).min(1, { message: "Allow at least one mode." }),
+    // This material's fee; left out, the clinic's list price (or the proposal's fee) applies.
+    fee: z.coerce.number<number>({ message: "Enter the material's fee." }).min(0, { message: "A fee cannot be negative." }).max(100_000, { message: "That fee looks too high." }).optional(),
+  }))
     .min(1, { message: "Allow at least one material." })
     .max(50, { message: "That is too many materials for one proposal." })
     .refine((options) => new Set(options.map((o) => o.materialId)).size === options.length, { message: "Each material can be listed only once." }),

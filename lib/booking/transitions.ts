@@ -4,6 +4,7 @@ import { Appointment, Clinic, Reservation, sequelize } from "@/db/models";
 import { assertCanSee } from "@/lib/data/access";
 import { withDefaults } from "@/lib/domain/clinic-settings";
 import type { AppointmentStatus } from "@/lib/domain/types";
+import { settleDepositAfterEnd } from "@/lib/payments/deposits";
 import { recordAudit } from "@/lib/server/audit";
 import { conflict, forbidden, notFound } from "@/lib/server/errors";
 import { rescheduleVisit, type Actor } from "./book";
@@ -38,6 +39,15 @@ async function change(actor: Actor, id: string, from: AppointmentStatus[], to: A
   });
 }
 
+/** Deposit follow-up once the visit's end is committed; a payment-service outage must not undo the decline. */
+async function settleDeposit(actor: Actor, visit: Appointment, to: "declined" | "cancelled", now = new Date()) {
+  try {
+    await settleDepositAfterEnd({ appointment: visit, to, byPatient: actor.user.role === "patient", actorUserId: actor.user.id, now });
+  } catch (err) {
+    console.error(`Deposit follow-up failed for visit ${visit.id}: ${err instanceof Error ? err.name : "error"}`);
+  }
+}
+
 export async function confirmVisit(actor: Actor, id: string) {
   if (!["reception", "admin"].includes(actor.user.role)) throw forbidden("Only reception or the clinic manager can confirm visits.");
   return change(actor, id, ["requested"], "confirmed", "visit.confirmed");
@@ -45,7 +55,9 @@ export async function confirmVisit(actor: Actor, id: string) {
 
 export async function declineVisit(actor: Actor, id: string, reason: string) {
   if (!["reception", "admin"].includes(actor.user.role)) throw forbidden("Only reception or the clinic manager can decline visits.");
-  return change(actor, id, ["requested"], "declined", "visit.declined", reason);
+  const visit = await change(actor, id, ["requested"], "declined", "visit.declined", reason);
+  await settleDeposit(actor, visit, "declined");
+  return visit;
 }
 
 /** Whether a patient may still change a visit online (before the clinic's cut-off). */
@@ -68,7 +80,10 @@ export async function cancelVisit(actor: Actor, id: string, reason?: string, now
   const visit = await findVisitFor(actor, id);
   await assertPatientMayChange(actor, visit, now);
   if (actor.user.role === "dentist") throw forbidden("Reception handles cancellations.");
-  return change(actor, id, ["requested", "confirmed"], "cancelled", "visit.cancelled", reason);
+  const cancelled = await change(actor, id, ["requested", "confirmed"], "cancelled", "visit.cancelled", reason);
+  // A patient's deposit comes back only before the clinic's refund cut-off (told before confirming).
+  await settleDeposit(actor, cancelled, "cancelled", now);
+  return cancelled;
 }
 
 export async function moveVisit(actor: Actor, id: string, start: Date, now = new Date()) {

@@ -32,6 +32,8 @@ const LABELS: Record<MailKind, string> = {
   reminder: "Reminder",
   aftercare: "Aftercare advice",
   consent_copy: "Consent copy (PDF)",
+  deposit_paid: "Deposit receipt",
+  deposit_refunded: "Deposit refund receipt",
 };
 
 function statusOf(state: OutboxState, dueAt: Date, lastOutcome: string | undefined, now: Date): DeliveryStatus {

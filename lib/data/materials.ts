@@ -25,6 +25,8 @@ export async function listMaterials({ clinicId, activeOnly = true }: { clinicId:
     description: m.description,
     pros: m.pros,
     cautions: m.cautions,
+    /** The clinic's list price in cents (null when the clinic has not priced it). */
+    listFeeCents: m.listFeeCents ?? null,
     modes: (m.modes ?? [])
       .slice()
       .sort((a, b) => ["rapid", "standard", "refined"].indexOf(a.mode) - ["rapid", "standard", "refined"].indexOf(b.mode))

@@ -35,6 +35,8 @@ function toView(p: Proposal, activeVisit: Appointment | null) {
         id: o.materialId,
         key: o.material!.key,
         name: o.material!.name,
+        // The dentist's fee for this material, else the proposal's single fee.
+        feeCents: o.feeCents ?? p.feeCents,
         modes: o.modes.filter((m) => o.material!.modes?.some((mm) => mm.mode === m)),
       })),
     activeVisit: activeVisit ? { id: activeVisit.id, status: activeVisit.status, startsAt: activeVisit.startsAt.toISOString() } : null,
@@ -97,7 +99,12 @@ export async function createProposal({ user, input, ip, userAgent }: { user: Ses
       { clinicId: user.clinicId!, patientId: patient.id, dentistId, tooth: input.tooth, feeCents: Math.round(input.fee * 100), note: input.note || null },
       { transaction },
     );
-    await ProposalMaterial.bulkCreate(input.options.map((o) => ({ proposalId: proposal.id, materialId: o.materialId, modes: o.modes })), { transaction });
+    // Each material's fee: the dentist's, else the clinic's list price, else the proposal's fee (null).
+    const listFee = (id: string) => materials.find((m) => m.id === id)?.listFeeCents ?? null;
+    await ProposalMaterial.bulkCreate(
+      input.options.map((o) => ({ proposalId: proposal.id, materialId: o.materialId, modes: o.modes, feeCents: o.fee !== undefined ? Math.round(o.fee * 100) : listFee(o.materialId) })),
+      { transaction },
+    );
     await recordAudit({ clinicId: user.clinicId, actorUserId: user.id, action: "proposal.created", subjectType: "proposal", subjectId: proposal.id, ip, userAgent, data: { tooth: input.tooth } }, transaction);
     return proposal;
   });

@@ -1,7 +1,8 @@
-// The worker loop (started through lib/jobs/worker-main.ts): sends the e-mail the outbox holds,
-// as it falls due. Several workers may run at once; pg-boss hands each job to one of them and
+// The worker loop (started through lib/jobs/worker-main.ts): releases unpaid booking holds and
+// sends the e-mail the outbox holds, as it falls due. Several workers may run at once; pg-boss hands each job to one of them and
 // the idempotency keys stop double sends.
 import { sequelize } from "@/db/sequelize";
+import { runDepositRelease } from "./deposit-release";
 import { drainMailOnce, getBoss, stopBoss } from "./mail-queue";
 import "@/lib/mail/hooks";
 
@@ -21,6 +22,8 @@ async function main() {
   console.log(`Worker started (pid ${process.pid}); polling every ${IDLE_MS} ms.`);
   while (!stopping) {
     try {
+      const released = await runDepositRelease();
+      if (released) console.log(`Deposits: released ${released} unpaid hold(s).`);
       const r = await drainMailOnce({ shouldStop: () => stopping });
       if (r.queued || r.sent || r.failed || r.skipped || r.duplicate) {
         console.log(`Mail: queued ${r.queued}, sent ${r.sent}, retrying or failed ${r.failed}, skipped ${r.skipped + r.duplicate}.`);

@@ -8,6 +8,7 @@ import { sequelize } from "@/db/sequelize";
 import type { MailKind } from "@/db/models/mail";
 import AftercareEmail from "@/emails/aftercare";
 import ConsentCopyEmail from "@/emails/consent-copy";
+import DepositReceiptEmail from "@/emails/deposit-receipt";
 import ReminderEmail from "@/emails/reminder";
 import VisitConfirmedEmail from "@/emails/visit-confirmed";
 import VisitEndedEmail from "@/emails/visit-ended";
@@ -19,6 +20,8 @@ import type { AppointmentStatus } from "@/lib/domain/types";
 import { durationWords, reminderHours, reminderStillUseful, timeUntilWords } from "@/lib/domain/reminders";
 import { visitCalendar } from "@/lib/domain/visit-calendar";
 import { shortWhen, visitWhen } from "@/lib/domain/visit-when";
+import { money, when as whenInZone } from "@/lib/format";
+import { receiptNumber } from "@/lib/domain/money";
 import { renderEmail } from "./render";
 import { reminderLink, reminderOneClickUrl } from "./reminder-token";
 import { mailFromAddress } from "./transport";
@@ -238,6 +241,15 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
       element = createElement(ConsentCopyEmail, { ...props, filename });
       subject = "Your copy of your signed consent";
       attachments.push({ filename, content: row.attachment, contentType: "application/pdf" });
+      break;
+    }
+    case "deposit_paid":
+    case "deposit_refunded": {
+      const paid = row.kind === "deposit_paid";
+      const amountText = money(Number(row.data.amountCents), String(row.data.currency));
+      const at = new Date(String(paid ? row.data.paidAt : row.data.refundedAt));
+      element = createElement(DepositReceiptEmail, { ...props, kind: paid ? "paid" : "refunded", amountText, atText: whenInZone(at, visit.timeZone), receiptNumber: receiptNumber(String(row.data.depositId), paid ? "paid" : "refunded") });
+      subject = paid ? `Receipt: your ${amountText} deposit for the visit on ${shortWhen(visit.startsAt, visit.timeZone)}` : `Refund receipt: your ${amountText} deposit`;
       break;
     }
     default:

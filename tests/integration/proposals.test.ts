@@ -30,7 +30,7 @@ describe("crown proposals", () => {
     expect(mine.map((p) => p.id)).toEqual([proposal.id]);
     // [P] HL7 crosswalk: FDI 46 = Universal 30; ISO 3950 quadrant 4 = lower right.
     expect(mine[0].tooth).toEqual(expect.objectContaining({ fdi: 46, universal: "30", words: "lower right first molar" }));
-    expect(mine[0].materials).toEqual([{ id: t.materialByKey["zirconia"].id, key: "zirconia", name: "Zirconia", modes: ["rapid", "standard"] }]);
+    expect(mine[0].materials).toEqual([{ id: t.materialByKey["zirconia"].id, key: "zirconia", name: "Zirconia", modes: ["rapid", "standard"], feeCents: 125_050 }]); // no list price in the test clinic: the proposal's fee
 
     expect(await listProposals({ user: session(b.user) })).toEqual([]);
     const err = await getProposal({ user: session(b.user), id: proposal.id }).catch((e) => e);

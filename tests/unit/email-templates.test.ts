@@ -4,6 +4,7 @@ import { createElement, type ReactElement } from "react";
 import { describe, expect, it } from "vitest";
 import AftercareEmail from "@/emails/aftercare";
 import ConsentCopyEmail from "@/emails/consent-copy";
+import DepositReceiptEmail from "@/emails/deposit-receipt";
 import ReminderEmail from "@/emails/reminder";
 import SignInLinkEmail from "@/emails/sign-in-link";
 import VisitConfirmedEmail from "@/emails/visit-confirmed";
@@ -36,6 +37,8 @@ const templates: [string, ReactElement, RegExp[]][] = [
     /Turn off reminders for this visit/, /https:\/\/portal\.example\/reminders\/t/,
   ]],
   ["consent copy", createElement(ConsentCopyEmail, { ...props, filename: "consent-2027-03-15.pdf" }), [/consent-2027-03-15\.pdf/, /paper copy/]],
+  ["deposit paid", createElement(DepositReceiptEmail, { ...props, kind: "paid", amountText: "$200.00", atText: "2027-03-01 09:12 EST", receiptNumber: "D-1A2B3C4D-P" }), [/received your deposit of \$200\.00/, /D-1A2B3C4D-P/, /plan's own decision prevails/]],
+  ["deposit refunded", createElement(DepositReceiptEmail, { ...props, kind: "refunded", amountText: "$200.00", atText: "2027-03-02 10:00 EST", receiptNumber: "D-1A2B3C4D-R" }), [/refunded your deposit of \$200\.00 in full/, /D-1A2B3C4D-R/]],
   ["aftercare", createElement(AftercareEmail, props), [/Numbness/, /Sensitivity/, /Call the clinic on \+1 555 0100 if/, /emergency services/]],
 ];
 

@@ -8,6 +8,7 @@ const SECTIONS = [
   { href: "/clinic/settings/plan", label: "Visit plan" },
   { href: "/clinic/settings/stage-times", label: "Estimated vs actual" },
   { href: "/clinic/settings/booking", label: "Booking and reminders" },
+  { href: "/clinic/settings/payments", label: "Prices and deposit" },
   { href: "/clinic/settings/staff", label: "Staff" },
 ];
 

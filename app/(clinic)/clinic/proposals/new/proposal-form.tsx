@@ -28,6 +28,8 @@ type Props = {
     provisionalOnly: boolean;
     /** Estimated visit minutes per mode and tooth class. */
     estimates: Partial<Record<Mode, { minutes: Record<ToothClass, number | null>; problem: string | null }>>;
+    /** The clinic's list price, as the fee field shows it. */
+    listFee: string;
   }[];
 };
 
@@ -35,6 +37,8 @@ export function ProposalForm({ role, patients, patientId, dentists, materials }:
   const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [allowed, setAllowed] = useState<Record<string, Mode[]>>({});
+  // Fees start at the clinic's list price; the dentist may change them per proposal.
+  const [fees, setFees] = useState<Record<string, string>>(() => Object.fromEntries(materials.map((m) => [m.id, m.listFee])));
   const { register, handleSubmit, control, setValue, formState } = useForm<Input, unknown, Output>({
     resolver: zodResolver(proposalSchema),
     defaultValues: { options: [], note: "", patientId: patientId ?? "" },
@@ -43,11 +47,21 @@ export function ProposalForm({ role, patients, patientId, dentists, materials }:
   const toothInfo = tooth && isValidFdi(String(tooth)) ? describeTooth(Number(tooth)) : null;
   const { errors, isSubmitting } = formState;
 
+  function sync(nextAllowed: Record<string, Mode[]>, nextFees: Record<string, string>) {
+    setValue("options", Object.entries(nextAllowed).map(([id, modes]) => ({ materialId: id, modes, ...(nextFees[id]?.trim() ? { fee: Number(nextFees[id].trim()) } : {}) })), { shouldValidate: formState.isSubmitted });
+  }
+
   function toggle(materialId: string, mode: Mode, on: boolean) {
     const next = { ...allowed, [materialId]: on ? [...(allowed[materialId] ?? []), mode] : (allowed[materialId] ?? []).filter((m) => m !== mode) };
     if (!next[materialId].length) delete next[materialId];
     setAllowed(next);
-    setValue("options", Object.entries(next).map(([id, modes]) => ({ materialId: id, modes })), { shouldValidate: formState.isSubmitted });
+    sync(next, fees);
+  }
+
+  function setFee(materialId: string, value: string) {
+    const next = { ...fees, [materialId]: value };
+    setFees(next);
+    sync(allowed, next);
   }
 
   const onSubmit = handleSubmit(async (values) => {
@@ -116,6 +130,12 @@ export function ProposalForm({ role, patients, patientId, dentists, materials }:
                   <div className="mt-1 text-sm">
                     <p className="font-semibold text-clay-700">Cautions</p>
                     <ul className="list-disc pl-5 text-ink-soft" data-testid={`cautions-${m.id}`}>{m.cautions.map((c) => <li key={c}>{c}</li>)}</ul>
+                  </div>
+                ) : null}
+                {allowed[m.id] ? (
+                  <div className="mt-2">
+                    <label htmlFor={`fee-${m.id}`} className="text-sm font-semibold">Fee for {m.name} (CAD)</label>
+                    <input id={`fee-${m.id}`} inputMode="decimal" className="field-input" value={fees[m.id] ?? ""} placeholder="Proposal fee below" onChange={(e) => setFee(m.id, e.target.value)} />
                   </div>
                 ) : null}
               </div>

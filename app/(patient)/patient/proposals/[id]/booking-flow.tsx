@@ -9,6 +9,9 @@ import { SlotPicker, type SlotOption } from "@/components/visits/slot-picker";
 
 export type MaterialChoice = {
   id: string;
+  feeCents: number;
+  /** The patient's share after their dental-plan estimate; null without an estimate. */
+  patientShareCents: number | null;
   name: string;
   description: string;
   pros: string[];
@@ -18,7 +21,7 @@ export type MaterialChoice = {
   modes: { mode: Mode; totalMinutes: number; finishing: string }[];
 };
 
-type Props = { proposalId: string; feeCents: number; currency: string; timezone: string; choices: MaterialChoice[] };
+type Props = { proposalId: string; currency: string; timezone: string; choices: MaterialChoice[]; depositNote: string | null };
 
 function lengthRange(c: MaterialChoice) {
   const mins = c.modes.map((m) => m.totalMinutes);
@@ -29,7 +32,7 @@ function lengthRange(c: MaterialChoice) {
 }
 
 /** Proposal → material → mode → day and time → review → book, on one phone-sized page. */
-export function BookingFlow({ proposalId, feeCents, currency, timezone, choices }: Props) {
+export function BookingFlow({ proposalId, currency, timezone, choices, depositNote }: Props) {
   const router = useRouter();
   const [materialId, setMaterialId] = useState<string | null>(choices.length === 1 ? choices[0].id : null);
   const material = choices.find((c) => c.id === materialId) ?? null;
@@ -71,7 +74,11 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
             <span className="flex items-start gap-3">
               <input type="radio" name="material" value={c.id} checked={materialId === c.id} onChange={() => { setMaterialId(c.id); setMode(null); setSlot(null); }} className="mt-1.5 size-5 accent-harbour-600" />
               <span className="block flex-1">
-                <span className="block text-lg font-semibold">{c.name}</span>
+                <span className="flex flex-wrap items-baseline justify-between gap-x-3">
+                  <span className="block text-lg font-semibold">{c.name}</span>
+                  <span className="block font-semibold" data-testid="material-fee">{money(c.feeCents, currency)}</span>
+                </span>
+                {c.patientShareCents !== null ? <span className="block text-sm text-ink-soft">Your share after your dental plan (estimate): {money(c.patientShareCents, currency)}</span> : null}
                 <span className="block text-sm text-ink-soft">Visit {lengthRange(c)} · {c.heatTreatment === "sintering" ? "includes sintering in the furnace" : c.heatTreatment === "crystallisation" ? "includes a firing in the furnace" : c.modes.some((m) => m.finishing === "stain_glaze") ? "a furnace firing only for a glazed finish" : "no furnace time"}</span>
                 <span className="mt-2 block">{c.description}</span>
                 <span className="mt-2 grid gap-2 sm:grid-cols-2">
@@ -89,7 +96,7 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
             </span>
           </label>
         ))}
-        <p className="text-sm text-ink-soft">The fee for this crown is {money(feeCents, currency)} whichever material you choose. Your dentist confirms the choice with you at the visit.</p>
+        <p className="text-sm text-ink-soft">Each material has its own fee, set by your dentist. Your dentist confirms the choice with you at the visit.{choices.some((c) => c.patientShareCents !== null) ? " Shares after your dental plan are estimates; the plan's own decision prevails." : ""}</p>
       </fieldset>
 
       {material && material.modes.length > 1 ? (
@@ -139,8 +146,10 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
             <dt className="text-ink-muted">Finish</dt><dd>{MODE_WORDS[modeInfo.mode].name}</dd>
             <dt className="text-ink-muted">Starts</dt><dd data-testid="review-start">{slot.label}</dd>
             <dt className="text-ink-muted">Length</dt><dd>{visitLengthRange(modeInfo.totalMinutes).text}; plan to stay the whole time</dd>
-            <dt className="text-ink-muted">Fee</dt><dd>{money(feeCents, currency)}</dd>
+            <dt className="text-ink-muted">Fee</dt><dd>{money(material.feeCents, currency)}</dd>
+            {material.patientShareCents !== null ? <><dt className="text-ink-muted">Your share</dt><dd>{money(material.patientShareCents, currency)} (estimate)</dd></> : null}
           </dl>
+          {depositNote ? <p className="text-sm">{depositNote}</p> : null}
           <p className="text-sm text-ink-soft">The clinic confirms your request. Before the visit you answer health questions and sign consent here.</p>
           <button type="button" className="btn-primary w-full" onClick={book} disabled={submitting}>{submitting ? "Booking…" : "Request this visit"}</button>
         </section>
