@@ -10,6 +10,9 @@ import { z } from "zod";
 export const FAKE_STORAGE_KEY = "S3RVER";
 export const MIN_PRODUCTION_SECRET = 32;
 
+const stripeKey = z.string().regex(/^sk_(test|live)_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_SECRET_KEY must be a secret key (sk_test_… or sk_live_…)" });
+const webhookSecret = z.string().regex(/^whsec_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_WEBHOOK_SECRET must be a webhook signing secret (whsec_…)" });
+
 const base = z.object({
   DATABASE_URL: z.string().url({ message: "DATABASE_URL must be a PostgreSQL URL" }),
   NEXTAUTH_SECRET: z.string().min(16, { message: "NEXTAUTH_SECRET must be at least 16 characters" }),
@@ -26,8 +29,9 @@ const base = z.object({
   TRUSTED_PROXIES: z.string().default(""),
   SEAL_CERT_PASSWORD: z.string().optional(),
   // The payment service: the official SDK, pointed at the local fake by STRIPE_API_URL.
-  STRIPE_SECRET_KEY: z.string().regex(/^sk_(test|live)_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_SECRET_KEY must be a secret key (sk_test_… or sk_live_…)" }),
-  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_[A-Za-z0-9_-]{8,}$/, { message: "STRIPE_WEBHOOK_SECRET must be a webhook signing secret (whsec_…)" }),
+  // Optional on a developer's machine (payments then answer with a clear error); required in production.
+  STRIPE_SECRET_KEY: stripeKey.optional(),
+  STRIPE_WEBHOOK_SECRET: webhookSecret.optional(),
   STRIPE_API_URL: z.string().url({ message: "STRIPE_API_URL must be a URL such as http://127.0.0.1:12111" }).optional(),
 });
 
@@ -44,6 +48,8 @@ const production = base.extend({
   S3_SECRET_ACCESS_KEY: notFake("S3_SECRET_ACCESS_KEY"),
   SEAL_CERT_PATH: present("SEAL_CERT_PATH"),
   SEAL_CERT_PASSWORD: present("SEAL_CERT_PASSWORD"),
+  STRIPE_SECRET_KEY: present("STRIPE_SECRET_KEY").pipe(stripeKey),
+  STRIPE_WEBHOOK_SECRET: present("STRIPE_WEBHOOK_SECRET").pipe(webhookSecret),
 });
 
 export type Env = z.infer<typeof base>;

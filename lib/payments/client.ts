@@ -11,6 +11,7 @@ declare global {
 export function payments(): Stripe {
   if (globalThis.__cuspalStripe) return globalThis.__cuspalStripe;
   const { STRIPE_SECRET_KEY, STRIPE_API_URL } = env();
+  if (!STRIPE_SECRET_KEY) throw new Error("Payments are not configured: set STRIPE_SECRET_KEY (npm run demo and npm test set a local one).");
   const local = STRIPE_API_URL ? new URL(STRIPE_API_URL) : null;
   globalThis.__cuspalStripe = new Stripe(STRIPE_SECRET_KEY, {
     ...(local
@@ -26,5 +27,7 @@ export function payments(): Stripe {
 /** Verifies the signature on the raw body and returns the event, or throws. */
 export function verifyWebhook(rawBody: string, signature: string | null): Stripe.Event {
   if (!signature) throw new Error("No signature header.");
-  return payments().webhooks.constructEvent(rawBody, signature, env().STRIPE_WEBHOOK_SECRET);
+  const secret = env().STRIPE_WEBHOOK_SECRET;
+  if (!secret) throw new Error("Payments are not configured: set STRIPE_WEBHOOK_SECRET.");
+  return payments().webhooks.constructEvent(rawBody, signature, secret);
 }

@@ -4,6 +4,7 @@ import { QueryTypes } from "sequelize";
 import { Appointment, Reservation, sequelize } from "@/db/models";
 import { UNPAID_HOLD_MINUTES } from "@/lib/domain/money";
 import { recordAudit } from "@/lib/server/audit";
+import "@/lib/mail/hooks";
 
 export const HOLD_RELEASED_REASON = `The deposit was not paid within ${UNPAID_HOLD_MINUTES} minutes of booking, so the time was released. You are welcome to book again.`;
 

@@ -16,20 +16,9 @@ import { payments } from "@/lib/payments/client";
 import { depositOf, startCheckout } from "@/lib/payments/deposits";
 import { releaseUnpaidHolds } from "@/lib/payments/release";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { setSessionUser } from "../support/session";
 
-const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", async () => {
-  const { forbidden, unauthorised } = await import("@/lib/server/errors");
-  return {
-    STAFF_ROLES: ["reception", "dentist", "admin"],
-    currentUser: async () => auth.user,
-    requireUser: async (roles?: readonly string[]) => {
-      if (!auth.user) throw unauthorised();
-      if (roles && !roles.includes(auth.user.role)) throw forbidden();
-      return auth.user;
-    },
-  };
-});
+vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
 const { POST: webhookRoute } = await import("@/app/api/payments/webhook/route");
 const { GET: visitRoute } = await import("@/app/api/appointments/[id]/route");
@@ -72,7 +61,7 @@ beforeAll(async () => {
 });
 
 afterEach(() => {
-  auth.user = null;
+  setSessionUser(null);
 });
 
 async function bookOne() {
@@ -119,7 +108,7 @@ describe("deposit at booking", () => {
     const deposit = await depositOf(visit.id);
     expect(deposit).toMatchObject({ amountCents: 20_000, currency: "CAD", status: "due" });
     expect(await auditCount(visit.id, "deposit.asked")).toBe(1);
-    auth.user = actor.user;
+    setSessionUser(actor.user);
     const res = await visitRoute(new NextRequest(`http://localhost/api/appointments/${visit.id}`), { params: Promise.resolve({ id: visit.id }) });
     const body = await res.json();
     expect(res.status).toBe(200);
@@ -131,7 +120,7 @@ describe("deposit at booking", () => {
   it("hides someone else's visit behind a 404", async () => {
     const { visit } = await bookOne();
     const stranger = await createTestPatient(t.clinic.id);
-    auth.user = asUser(stranger.user);
+    setSessionUser(asUser(stranger.user));
     const res = await visitRoute(new NextRequest(`http://localhost/api/appointments/${visit.id}`), { params: Promise.resolve({ id: visit.id }) });
     expect(res.status).toBe(404);
   });
@@ -165,7 +154,7 @@ describe("webhook", () => {
     expect(await auditCount(visit.id, "deposit.paid")).toBe(1);
 
     // The PDF receipt, read back by an independent parser (pdfjs-dist); the amount as Intl formats CAD in en-CA.
-    auth.user = asUser(t.staff.reception);
+    setSessionUser(asUser(t.staff.reception));
     const res = await receiptRoute(new NextRequest(`http://localhost/api/appointments/${visit.id}/receipt`), { params: Promise.resolve({ id: visit.id }) });
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("application/pdf");
@@ -176,7 +165,7 @@ describe("webhook", () => {
 
   it("has no receipt before a payment (404)", async () => {
     const { actor, visit } = await bookOne();
-    auth.user = actor.user;
+    setSessionUser(actor.user);
     const res = await receiptRoute(new NextRequest(`http://localhost/api/appointments/${visit.id}/receipt`), { params: Promise.resolve({ id: visit.id }) });
     expect(res.status).toBe(404);
   });
@@ -286,7 +275,7 @@ describe("unpaid holds", () => {
 
 describe("payments list", () => {
   it("lists the clinic's deposits with totals, and as CSV", async () => {
-    auth.user = asUser(t.staff.reception);
+    setSessionUser(asUser(t.staff.reception));
     const res = await paymentsRoute(new NextRequest("http://localhost/api/payments?status=refunded"), undefined);
     const body = await res.json();
     expect(res.status).toBe(200);
@@ -298,10 +287,10 @@ describe("payments list", () => {
     const text = await csv.text();
     expect(text.split("\r\n")[0]).toBe("deposit_id,visit_id,patient,visit_starts_at,amount,currency,status,paid_at,refunded_at,created_at");
     expect(text).toContain(",200.00,CAD,");
-    auth.user = null;
+    setSessionUser(null);
     expect((await paymentsRoute(new NextRequest("http://localhost/api/payments"), undefined)).status).toBe(401);
     const patient = await createTestPatient(t.clinic.id);
-    auth.user = asUser(patient.user);
+    setSessionUser(asUser(patient.user));
     expect((await paymentsRoute(new NextRequest("http://localhost/api/payments"), undefined)).status).toBe(403);
   });
 });
@@ -324,8 +313,8 @@ describe("fees per material", () => {
 describe("dental-plan estimate", () => {
   it("the patient saves their figures; the visit shows the estimated shares; others get 404", async () => {
     const { actor, visit, proposal } = await bookOne();
-    const put = (body: unknown) => planRoute(new NextRequest(`http://localhost/api/proposals/${proposal.id}/plan-estimate`, { method: "PUT", body: JSON.stringify(body) }), { params: Promise.resolve({ id: proposal.id }) });
-    auth.user = actor.user;
+    const put = (body: unknown) => planRoute(new NextRequest(`http://localhost/api/proposals/${proposal.id}/plan-estimate`, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(body) }), { params: Promise.resolve({ id: proposal.id }) });
+    setSessionUser(actor.user);
     const bad = await put({ coveragePercent: 150, deductibleRemaining: "0", annualMaxRemaining: "0" });
     expect(bad.status).toBe(400);
     expect((await bad.json()).field).toBe("coveragePercent");
@@ -336,7 +325,7 @@ describe("dental-plan estimate", () => {
     expect(body).toMatchObject({ feeCents: 120_000, planShareEstimateCents: 57_500, patientShareCents: 62_500, balanceDueCents: 62_500 });
     expect(await auditCount(proposal.id, "plan_estimate.saved")).toBe(1);
     const stranger = await createTestPatient(t.clinic.id);
-    auth.user = asUser(stranger.user);
+    setSessionUser(asUser(stranger.user));
     expect((await put({ coveragePercent: 10, deductibleRemaining: "0", annualMaxRemaining: "0" })).status).toBe(404);
   });
 });

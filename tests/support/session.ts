@@ -16,6 +16,11 @@ export function signInAs(u: Person): SessionUser {
   return state.user;
 }
 
+/** Signs in an already-built session user (or none). */
+export function setSessionUser(u: SessionUser | null) {
+  state.user = u;
+}
+
 export function signOut() {
   state.user = null;
 }

@@ -11,6 +11,8 @@ const good = {
   S3_SECRET_ACCESS_KEY: "a-real-looking-storage-secret",
   SEAL_CERT_PATH: "/etc/cuspal/seal.p12",
   SEAL_CERT_PASSWORD: "seal-password",
+  STRIPE_SECRET_KEY: "sk_live_examplekey123",
+  STRIPE_WEBHOOK_SECRET: "whsec_examplesecret123",
 };
 
 const problems = (source: Record<string, string | undefined>) => {
@@ -50,6 +52,12 @@ describe("settings in production", () => {
     const message = problems({ NODE_ENV: "production", DATABASE_URL: good.DATABASE_URL });
     for (const name of ["NEXTAUTH_SECRET", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY", "SEAL_CERT_PATH", "SEAL_CERT_PASSWORD"]) expect(message).toContain(name);
     expect(message).toMatch(/Running in production/);
+  });
+
+  it("refuses missing payment keys", () => {
+    const missing = problems({ ...good, STRIPE_SECRET_KEY: undefined, STRIPE_WEBHOOK_SECRET: undefined });
+    expect(missing).toMatch(/STRIPE_SECRET_KEY must be set in production/);
+    expect(missing).toMatch(/STRIPE_WEBHOOK_SECRET must be set in production/);
   });
 
   it("keeps the local defaults outside production", () => {
