@@ -10,7 +10,7 @@ import { createDocument } from "@/lib/data/documents";
 import { QUESTION_KEYS } from "@/lib/domain/consent-questionnaire";
 import { SECTION_KEYS } from "@/lib/domain/consent-text";
 import { reminderToken } from "@/lib/mail/reminder-token";
-import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "./fixtures";
+import { createTestClinic, createTestPatient, createTestProposal, createUser, type TestClinic } from "./fixtures";
 import { sessionOf, signInAs, signOut } from "./session";
 import { pdfDocument } from "./sample-files";
 
@@ -91,7 +91,17 @@ export async function createWorld() {
     return String(row.id);
   }
 
-  return { home, away, owner, other, proposal, users, make: { visit, consent, document, outage, token: async () => {
+  /** A fresh patient of the home clinic (invitations are throttled per patient, so each call gets its own). */
+  async function patient(): Promise<string> {
+    return (await createTestPatient(home.clinic.id, "Matrix Patient")).patient.id;
+  }
+
+  /** A fresh reception account of the home clinic, for the manager to change. */
+  async function staffMember(): Promise<string> {
+    return (await createUser(home.clinic.id, "reception", "Matrix Reception")).id;
+  }
+
+  return { home, away, owner, other, proposal, users, make: { visit, consent, document, outage, patient, staffMember, token: async () => {
     const v = await visit("confirmed");
     return reminderToken(v.id, v.startsAt);
   } } };
