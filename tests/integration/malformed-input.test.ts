@@ -135,8 +135,6 @@ describe("malformed input against every route", () => {
 
   // Tests in a file run in order: this one comes after every request above.
   it("changed nothing in the database", async () => {
-    const { sequelize } = await import("@/db/models");
-    console.log("AUDIT-DIAG", JSON.stringify(await sequelize.query(`SELECT action, count(*) FROM audit_events WHERE clinic_id IN (:c) GROUP BY action`, { replacements: { c: [world.home.clinic.id, world.away.clinic.id] }, type: "SELECT" })));
     expect(await snapshot(world)).toEqual(before);
   });
 });
