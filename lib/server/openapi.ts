@@ -7,6 +7,8 @@ import { lotBodySchema } from "@/lib/data/lots";
 import { stageMarkSchema } from "@/lib/data/progress";
 import { signConsentSchema, withdrawConsentSchema } from "@/lib/domain/consent-schemas";
 import { outageSchema } from "@/lib/domain/outage-schema";
+import { DEFAULT_COUNTRY, registerPatientSchema, updateMeSchema, updatePatientSchema } from "@/lib/domain/patient-record";
+import { staffAccessSchema } from "@/lib/domain/settings-schemas";
 import { documentFieldsSchema } from "@/lib/documents/schema";
 import { JSON_BODY_LIMIT } from "./api";
 import {
@@ -34,6 +36,9 @@ export type ApiOperation = {
 
 const STAFF = ["reception", "dentist", "admin"] as const;
 const json = { type: "application/json" };
+// The patient schemas depend on the clinic's country (phone numbers) and today's date (dates of
+// birth); the document shows them for the default country, the fields are the same everywhere.
+const patientContext = { country: DEFAULT_COUNTRY, today: new Date().toISOString().slice(0, 10) };
 
 /** Every operation of the API; a test checks each route file's methods have one. */
 export const API_OPERATIONS: ApiOperation[] = [
@@ -73,6 +78,16 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: "get", path: "/api/reminders/{token}", summary: "Send the reader of a reminder link to its page", who: "token", ok: { status: 303, description: "Redirect to the reminder page" } },
   { method: "post", path: "/api/reminders/{token}", summary: "Turn a visit's reminders off or on with the signed link (also RFC 8058 one-click)", who: "token", json: reminderJsonBody, form: reminderFormBody, ok: { status: 200, description: "The reminders' state (a form gets a 303 to the page)", ...json } },
   { method: "get", path: "/api/staff", summary: "The clinic's staff accounts", who: STAFF, ok: { status: 200, description: "The staff", ...json } },
+  { method: "patch", path: "/api/staff/{id}", summary: "Turn a staff account on or off, or change its role (its sessions end)", who: ["admin"], json: staffAccessSchema, ok: { status: 200, description: "The account's role and state", ...json } },
+  { method: "get", path: "/api/patients", summary: "Search the clinic's patients (query: q, page, archived, sort)", who: STAFF, ok: { status: 200, description: "One page of patients", ...json } },
+  { method: "post", path: "/api/patients", summary: "Register a patient (409 with existingId when the same person is on file)", who: STAFF, json: registerPatientSchema(patientContext), ok: { status: 201, description: "Registered", ...json } },
+  { method: "get", path: "/api/patients/{id}", summary: "One patient of the clinic", who: STAFF, ok: { status: 200, description: "The patient", ...json } },
+  { method: "patch", path: "/api/patients/{id}", summary: "Correct a patient's details, archive or unarchive", who: STAFF, json: updatePatientSchema(patientContext), ok: { status: 200, description: "The patient after the change", ...json } },
+  { method: "post", path: "/api/patients/{id}/invite", summary: "E-mail the patient a one-time sign-in link (429 past the hourly limit)", who: STAFF, ok: { status: 202, description: "Sent, with the link's expiry", ...json } },
+  { method: "get", path: "/api/me", summary: "The signed-in patient's own profile", who: ["patient"], ok: { status: 200, description: "The profile", ...json } },
+  { method: "patch", path: "/api/me", summary: "Change one's phone, language, reminders or e-mail (a new e-mail waits for its link)", who: ["patient"], json: updateMeSchema(DEFAULT_COUNTRY), ok: { status: 200, description: "The profile, and whether an e-mail change is pending", ...json } },
+  { method: "get", path: "/api/me/export", summary: "The signed-in patient's records as a ZIP", who: ["patient"], ok: { status: 200, description: "The ZIP", type: "application/zip" } },
+  { method: "get", path: "/api/me/email", summary: "Confirm a new e-mail address with the link sent to it (query: token)", who: "token", ok: { status: 303, description: "Redirect to the profile page with the outcome" } },
 ];
 
 const ERRORS: Record<string, string> = {
@@ -91,7 +106,7 @@ const schemaOf = (s: ZodType) => z.toJSONSchema(s, { target: "draft-2020-12", io
 function whoText(who: Who): string {
   if (who === "anyone") return "Anyone.";
   if (who === "signed-in") return "Any signed-in user; rows are limited to the caller's own (patient) or clinic (staff).";
-  if (who === "token") return "Anyone holding the signed link from a reminder e-mail.";
+  if (who === "token") return "Anyone holding the link from one of our e-mails (a reminder, an address confirmation): the link's token authorises it.";
   return `Signed in as: ${who.join(", ")}.`;
 }
 

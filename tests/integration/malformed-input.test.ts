@@ -42,9 +42,14 @@ const wrongValue = fc.oneof(
 );
 const brokenJson = fc.constantFrom("{", '{"a":', "nul", "[1,2", '{"tooth": 36,}', "\u0000", '{"__proto__": {"admin": true}}', "1".repeat(400));
 
+/** The route's operation in the API document. */
+function operationOf(route: string, method: string) {
+  return API_OPERATIONS.find((o) => o.path === route.replace(/\[\.\.\.([^\]]+)\]/g, "{$1}").replace(/\[([^\]]+)\]/g, "{$1}") && o.method === method.toLowerCase());
+}
+
 /** The body and query keys a route reads, from the API document, so the fuzz aims at real fields. */
 function keysOf(route: string, method: string): { body: string[]; query: string[] } {
-  const op = API_OPERATIONS.find((o) => o.path === route.replace(/\[\.\.\.([^\]]+)\]/g, "{$1}").replace(/\[([^\]]+)\]/g, "{$1}") && o.method === method.toLowerCase());
+  const op = operationOf(route, method);
   const shape = (s: unknown) => Object.keys((s as { shape?: Record<string, unknown> } | undefined)?.shape ?? {});
   return { body: [...shape(op?.json), ...shape(op?.multipart)], query: shape(op?.query) };
 }
@@ -110,6 +115,11 @@ describe("malformed input against every route", () => {
         const handler = ((await import(/* @vite-ignore */ r.file)) as Record<string, Handler>)[method];
         await fc.assert(
           fc.asyncProperty(caseFor(keysOf(r.route, method)), async (c) => {
+            // A route whose fields are all optional accepts some generated bodies as they are
+            // (`{ "reminders": false }` for PATCH /api/me): that is a valid request, which may
+            // rightly change data, not malformed input. Without path ids nothing else refuses it.
+            const schema = operationOf(r.route, method)?.json;
+            fc.pre(!(schema && !/\[/.test(r.route) && c.body.kind === "json" && schema.safeParse(c.body.value).success));
             actAs(world, c.actor);
             const { req, params } = requestFor(method, r.route, c);
             const res = await handler(req, { params: Promise.resolve(params) });

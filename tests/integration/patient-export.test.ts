@@ -13,24 +13,11 @@ import { QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-q
 import { SECTION_KEYS } from "@/lib/domain/consent-text";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
 import { pdfDocument } from "../support/sample-files";
+import { sessionOf, signInAs, signOut } from "../support/session";
 
-const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", async () => {
-  const { forbidden, unauthorised } = await import("@/lib/server/errors");
-  return {
-    STAFF_ROLES: ["reception", "dentist", "admin"],
-    currentUser: async () => auth.user,
-    requireUser: async (roles?: readonly string[]) => {
-      if (!auth.user) throw unauthorised();
-      if (roles && !roles.includes(auth.user.role)) throw forbidden();
-      return auth.user;
-    },
-  };
-});
+vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 const { GET: exportRoute } = await import("@/app/api/me/export/route");
 
-const sessionOf = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 let t: TestClinic;
 let patientUser: SessionUser;
@@ -99,7 +86,7 @@ const sha256 = (b: Buffer) => createHash("sha256").update(b).digest("hex");
 
 describe("GET /api/me/export", () => {
   it("gives the patient a ZIP whose JSON parses and whose consent PDFs match their stored SHA-256", async () => {
-    auth.user = patientUser;
+    signInAs(patientUser);
     const res = await exportRoute(new NextRequest("http://localhost/api/me/export"), undefined);
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("application/zip");
@@ -137,9 +124,9 @@ describe("GET /api/me/export", () => {
   });
 
   it("is for the signed-in patient only", async () => {
-    auth.user = sessionOf(t.staff.reception);
+    signInAs(t.staff.reception);
     expect((await exportRoute(new NextRequest("http://localhost/api/me/export"), undefined)).status).toBe(403);
-    auth.user = null;
+    signOut();
     expect((await exportRoute(new NextRequest("http://localhost/api/me/export"), undefined)).status).toBe(401);
   });
 });

@@ -6,24 +6,12 @@ import path from "node:path";
 import { NextRequest } from "next/server";
 import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { AuditEvent, Patient, User, sequelize } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { bookVisit } from "@/lib/booking/book";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
 import { caughtFor, eventually } from "../support/mail";
+import { sessionOf, signInAs, signOut } from "../support/session";
 
-const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
-vi.mock("@/lib/auth/session", async () => {
-  const { forbidden, unauthorised } = await import("@/lib/server/errors");
-  return {
-    STAFF_ROLES: ["reception", "dentist", "admin"],
-    currentUser: async () => auth.user,
-    requireUser: async (roles?: readonly string[]) => {
-      if (!auth.user) throw unauthorised();
-      if (roles && !roles.includes(auth.user.role)) throw forbidden();
-      return auth.user;
-    },
-  };
-});
+vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
 const patientsRoute = await import("@/app/api/patients/route");
 const patientRoute = await import("@/app/api/patients/[id]/route");
@@ -31,8 +19,7 @@ const inviteRoute = await import("@/app/api/patients/[id]/invite/route");
 const meRoute = await import("@/app/api/me/route");
 const { authOptions } = await import("@/lib/auth/options");
 
-type Person = { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null };
-const as = (u: Person) => (auth.user = { id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const as = signInAs;
 
 let t: TestClinic;
 let other: TestClinic;
@@ -43,7 +30,7 @@ beforeAll(async () => {
 });
 
 afterEach(() => {
-  auth.user = null;
+  signOut();
 });
 
 const json = (method: string, url: string, body?: unknown) =>
@@ -248,12 +235,12 @@ describe("the patient's own profile", () => {
     const mail = await eventually(async () => (await caughtFor(newEmail))[0]);
     const link = new URL(mail.text!.match(/https?:\/\/\S+\/api\/me\/email\?token=[0-9a-f]+/)![0]);
     const { GET: confirm } = await import("@/app/api/me/email/route");
-    const done = await confirm(new NextRequest(`http://localhost${link.pathname}${link.search}`));
+    const done = await confirm(new NextRequest(`http://localhost${link.pathname}${link.search}`), undefined);
     expect(done.status).toBe(303);
     expect(done.headers.get("location")).toContain("notice=email-changed");
     expect((await User.findByPk(user.id))!.email).toBe(newEmail);
     // The link works once.
-    const twice = await confirm(new NextRequest(`http://localhost${link.pathname}${link.search}`));
+    const twice = await confirm(new NextRequest(`http://localhost${link.pathname}${link.search}`), undefined);
     expect(twice.headers.get("location")).toContain("notice=email-link-expired");
   });
 
@@ -261,7 +248,7 @@ describe("the patient's own profile", () => {
     const { user, patient } = await createTestPatient(t.clinic.id, "Quiet Patient");
     await patient.update({ reminders: false });
     const proposal = await createTestProposal(t, patient.id);
-    const session = { id: user.id, email: user.email, name: user.name, role: user.role, clinicId: user.clinicId };
+    const session = sessionOf(user);
     // Wednesday 2027-03-10, 08:00 in Toronto (EST, UTC−5), booked a week before.
     const visit = await bookVisit({
       proposalId: proposal.id, materialId: t.materialByKey["zirconia"].id, mode: "standard",

@@ -3,6 +3,7 @@
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { apiRouteFiles } from "../support/api-routes";
 import { ROUTE_MATRIX, rowBody, rowKey, rowQuery, type Fill, type Ids, type MatrixRow } from "../support/route-matrix";
+import { signInAs } from "../support/session";
 import { ACTORS, actAs, apiRequest, createWorld, type World } from "../support/trust-world";
 
 vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
@@ -30,6 +31,9 @@ async function fill(f: Fill, w: World): Promise<string> {
     case "outage": return w.make.outage();
     case "proposal": return w.proposal.id;
     case "token": return w.make.token();
+    case "ownerPatient": return w.owner.patient.id;
+    case "patient": return w.make.patient();
+    case "staffMember": return w.make.staffMember();
   }
 }
 
@@ -69,4 +73,20 @@ describe("route × role matrix", () => {
       expect(got).toEqual(Object.fromEntries(ACTORS.map((a, i) => [a, want[i]])));
     });
   }
+
+  // The walk's foreign caller is reception, refused by role (403) before any row is looked up. A
+  // manager of the other clinic passes the role check, so the row lookup must answer 404.
+  it("another clinic's manager gets 404 for a staff account or patient of this clinic", async () => {
+    signInAs(world.away.staff.admin);
+    const byRow = (method: MatrixRow["method"], route: string) => ROUTE_MATRIX.find((r) => r.method === method && r.route === route)!;
+    const got: Record<string, number> = {};
+    for (const row of [byRow("PATCH", "/api/staff/[id]"), byRow("GET", "/api/patients/[id]"), byRow("PATCH", "/api/patients/[id]"), byRow("POST", "/api/patients/[id]/invite")]) {
+      const res = await callRow(row, world);
+      got[`${row.method} ${row.route}`] = res.status;
+      expect(await res.json()).toEqual(expect.objectContaining({ error: expect.any(String) }));
+    }
+    expect(got).toEqual({
+      "PATCH /api/staff/[id]": 404, "GET /api/patients/[id]": 404, "PATCH /api/patients/[id]": 404, "POST /api/patients/[id]/invite": 404,
+    });
+  });
 });

@@ -5,13 +5,13 @@ import { describe, expect, it } from "vitest";
 import { AuditEvent, User } from "@/db/models";
 import { signOutEverywhere } from "@/lib/auth/account";
 import { authOptionsFor } from "@/lib/auth/options";
-import type { SessionUser } from "@/lib/auth/session";
 import { changeStaffAccess, endStaffSessions } from "@/lib/data/staff";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient } from "../support/fixtures";
+import { sessionOf } from "../support/session";
 
 const jwt = authOptionsFor().callbacks!.jwt!;
-const asUser = (u: User): SessionUser => ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const asUser = sessionOf;
 
 /** A token as sign-in makes it, then one later use of it (what every request does). */
 async function signIn(u: User, authAtOffsetSeconds = 0): Promise<JWT> {

@@ -5,17 +5,22 @@
 // Adding a route: add one row per exported method.
 //   route   the file's folder under app/, e.g. "/api/appointments/[id]/cancel"
 //   params  what fills each [segment]: "visit" | "consent" | "document" | "outage" | "proposal" |
-//           "token" | a literal string (a stage key, say). Rows are made fresh for every call.
-//   query   the query string, may use the same fillers: "?patientId={ownerPatient}"
+//           "token" | "ownerPatient" (the owner's patient row) | "patient" (a fresh patient of the
+//           home clinic) | "staffMember" (a fresh reception account of the home clinic) | a literal
+//           string (a stage key, say). Rows are made fresh for every call.
+//   query   the query string, may use the fillers {ownerPatient} and {zirconia}: "?patientId={ownerPatient}"
 //   body    a JSON value, or a function of the world and the filled ids, or { form: … } for multipart
 //   expect  seven statuses in this order:
 //           anonymous  owner  otherPatient  reception  dentist  admin  foreignStaff
 //           "owner" is the patient whose row it is; "foreignStaff" is reception of another clinic.
 //           Or "skip: why" for routes that are not ours to walk.
+import { randomUUID } from "node:crypto";
 import type { World } from "./trust-world";
 import { pdfDocument } from "./sample-files";
 
-export type Fill = "visit" | "requestedVisit" | "consent" | "document" | "outage" | "proposal" | "token" | { literal: string };
+export type Fill =
+  | "visit" | "requestedVisit" | "consent" | "document" | "outage" | "proposal" | "token"
+  | "ownerPatient" | "patient" | "staffMember" | { literal: string };
 export type Ids = Record<string, string>;
 export type Body = ((world: World, ids: Ids) => unknown) | { form: (world: World, ids: Ids) => FormData } | Record<string, unknown>;
 
@@ -31,6 +36,12 @@ export type MatrixRow = {
 const DAY = 24 * 3600 * 1000;
 /** A clinic-local wall-clock time N days ahead (the form's datetime-local shape). */
 const localIn = (days: number, time: string) => `${new Date(Date.now() + days * DAY).toISOString().slice(0, 10)}T${time}`;
+let registered = 0;
+/** A new person on every call, so registering twice is never the same person (409). */
+const newPerson = () => {
+  registered += 1;
+  return { name: `Matrix Registrant ${registered}`, email: `matrix-${randomUUID()}@cuspal.test`, dateOfBirth: "1984-06-12" };
+};
 
 export const ROUTE_MATRIX: MatrixRow[] = [
   // ——— visits ———
@@ -95,6 +106,23 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   { method: "GET", route: "/api/materials", expect: "401 200 200 200 200 200 200" },
   { method: "GET", route: "/api/openapi.json", expect: "200 200 200 200 200 200 200" },
   { method: "GET", route: "/api/staff", expect: "401 403 403 200 200 200 200" },
+  // Only the clinic manager changes staff accounts; another clinic's manager gets 404 (tested beside the walk).
+  { method: "PATCH", route: "/api/staff/[id]", params: { id: "staffMember" }, body: { role: "dentist" }, expect: "401 403 403 403 403 200 403" },
+
+  // ——— patient records (staff) ———
+  { method: "GET", route: "/api/patients", query: "?q=Owner", expect: "401 403 403 200 200 200 200" },
+  // Another clinic's staff register the person in their own clinic: that is allowed (201).
+  { method: "POST", route: "/api/patients", body: () => newPerson(), expect: "401 403 403 201 201 201 201" },
+  { method: "GET", route: "/api/patients/[id]", params: { id: "ownerPatient" }, expect: "401 403 403 200 200 200 404" },
+  { method: "PATCH", route: "/api/patients/[id]", params: { id: "ownerPatient" }, body: { reminders: true }, expect: "401 403 403 200 200 200 404" },
+  { method: "POST", route: "/api/patients/[id]/invite", params: { id: "patient" }, expect: "401 403 403 202 202 202 404" },
+
+  // ——— the signed-in patient's own profile ———
+  { method: "GET", route: "/api/me", expect: "401 200 200 403 403 403 403" },
+  { method: "PATCH", route: "/api/me", body: { reminders: true }, expect: "401 200 200 403 403 403 403" },
+  { method: "GET", route: "/api/me/export", expect: "401 200 200 403 403 403 403" },
+  // The e-mailed link is the authority, not the session: an unknown link sends anyone to the profile page.
+  { method: "GET", route: "/api/me/email", query: `?token=${"0".repeat(64)}`, expect: "303 303 303 303 303 303 303" },
 
   // ——— proposals ———
   { method: "GET", route: "/api/proposals", expect: "401 200 200 200 200 200 200" },

@@ -1,12 +1,12 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { confirmEmailChange } from "@/lib/data/me";
 import { AppError } from "@/lib/server/errors";
-import { clientInfo } from "@/lib/server/api";
+import { clientInfo, route } from "@/lib/server/api";
 
 export const dynamic = "force-dynamic";
 
 /** The link e-mailed to a new address: confirms it, then shows the outcome on the profile page. */
-export async function GET(req: NextRequest) {
+export const GET = route(async (req: NextRequest) => {
   const token = req.nextUrl.searchParams.get("token") ?? "";
   const target = new URL("/patient/profile", req.nextUrl.origin);
   try {
@@ -17,4 +17,4 @@ export async function GET(req: NextRequest) {
     target.searchParams.set("notice", err.status === 409 ? "email-taken" : "email-link-expired");
   }
   return NextResponse.redirect(target, 303);
-}
+});
