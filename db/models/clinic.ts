@@ -18,6 +18,8 @@ export class Clinic extends Model<InferAttributes<Clinic>, InferCreationAttribut
   declare address: string;
   declare phone: string | null;
   declare currency: CreationOptional<string>;
+  /** ISO 3166-2 code of the clinic's province or state, e.g. "CA-ON" (lib/domain/jurisdiction.ts). */
+  declare jurisdiction: CreationOptional<string>;
   declare settings: CreationOptional<ClinicSettingsJson>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -32,6 +34,7 @@ Clinic.init(
     address: { type: DataTypes.TEXT, allowNull: false },
     phone: DataTypes.TEXT,
     currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: "CAD" },
+    jurisdiction: { type: DataTypes.TEXT, allowNull: false, defaultValue: "CA-ON" },
     settings: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -8,6 +8,8 @@ export class Patient extends Model<InferAttributes<Patient>, InferCreationAttrib
   declare clinicId: string;
   declare dateOfBirth: string | null;
   declare phone: string | null;
+  /** Preferred language of pages, e-mails and consent: "en" or "fr". */
+  declare language: CreationOptional<"en" | "fr">;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare user?: NonAttribute<User>;
@@ -20,6 +22,7 @@ Patient.init(
     clinicId: { type: DataTypes.UUID, allowNull: false },
     dateOfBirth: DataTypes.DATEONLY,
     phone: DataTypes.TEXT,
+    language: { type: DataTypes.TEXT, allowNull: false, defaultValue: "en" },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
