@@ -22,6 +22,7 @@ export async function listMaterials({ clinicId, activeOnly = true }: { clinicId:
     description: m.description,
     pros: m.pros,
     cautions: m.cautions,
+    translations: m.translations,
     modes: (m.modes ?? [])
       .slice()
       .sort((a, b) => ["rapid", "standard", "refined"].indexOf(a.mode) - ["rapid", "standard", "refined"].indexOf(b.mode))

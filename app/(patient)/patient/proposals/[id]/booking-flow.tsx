@@ -1,8 +1,10 @@
 "use client";
 
 import { useRouter } from "next/navigation";
+import { useTranslations } from "next-intl";
 import { useState } from "react";
-import { duration, MODE_WORDS, money } from "@/lib/format";
+import { duration, money } from "@/lib/format";
+import type { Locale } from "@/lib/i18n/locale";
 import type { Mode } from "@/lib/domain/types";
 import { SlotPicker, type SlotOption } from "./slot-picker";
 
@@ -17,18 +19,21 @@ export type MaterialChoice = {
   modes: { mode: Mode; totalMinutes: number; finishing: string }[];
 };
 
-type Props = { proposalId: string; feeCents: number; currency: string; timezone: string; choices: MaterialChoice[] };
+type Props = { locale: Locale; proposalId: string; feeCents: number; currency: string; timezone: string; choices: MaterialChoice[] };
 
-function lengthRange(c: MaterialChoice) {
+function lengthRange(c: MaterialChoice, locale: Locale) {
   const mins = c.modes.map((m) => m.totalMinutes);
   const lo = Math.min(...mins);
   const hi = Math.max(...mins);
-  return lo === hi ? duration(lo) : `${duration(lo)} – ${duration(hi)}`;
+  return lo === hi ? duration(lo, locale) : `${duration(lo, locale)} – ${duration(hi, locale)}`;
 }
 
 /** Proposal → material → mode → day and time → review → book, on one phone-sized page. */
-export function BookingFlow({ proposalId, feeCents, currency, timezone, choices }: Props) {
+export function BookingFlow({ locale, proposalId, feeCents, currency, timezone, choices }: Props) {
   const router = useRouter();
+  const t = useTranslations("booking");
+  const tm = useTranslations("modes");
+  const tc = useTranslations("common");
   const [materialId, setMaterialId] = useState<string | null>(choices.length === 1 ? choices[0].id : null);
   const material = choices.find((c) => c.id === materialId) ?? null;
   const [mode, setMode] = useState<Mode | null>(null);
@@ -55,7 +60,7 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
       router.refresh();
       return;
     }
-    setError(body.error ?? "Booking did not work. Please try again.");
+    setError(body.error ?? t("failed"));
     setAlternatives(body.alternatives ?? []);
     if (res.status === 409) setSlot(null);
   }
@@ -63,53 +68,53 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
   return (
     <div className="space-y-6">
       <fieldset className="space-y-3">
-        <legend className="mb-2 text-lg font-semibold">1. Choose a material</legend>
+        <legend className="mb-2 text-lg font-semibold">{t("chooseMaterial")}</legend>
         {choices.map((c) => (
           <label key={c.id} className={`card block cursor-pointer has-[:checked]:border-harbour-600 has-[:checked]:ring-2 has-[:checked]:ring-harbour-600`} data-testid="material-card">
             <span className="flex items-start gap-3">
               <input type="radio" name="material" value={c.id} checked={materialId === c.id} onChange={() => { setMaterialId(c.id); setMode(null); setSlot(null); }} className="mt-1.5 size-5 accent-harbour-600" />
               <span className="block flex-1">
                 <span className="block text-lg font-semibold">{c.name}</span>
-                <span className="block text-sm text-ink-soft">Visit about {lengthRange(c)} · {c.heatTreatment === "none" ? "no furnace time" : c.heatTreatment === "sintering" ? "includes sintering in the furnace" : "includes a firing in the furnace"}</span>
+                <span className="block text-sm text-ink-soft">{t("visitAbout", { length: lengthRange(c, locale) })} · {t("furnace", { heat: c.heatTreatment })}</span>
                 <span className="mt-2 block">{c.description}</span>
                 <span className="mt-2 grid gap-2 sm:grid-cols-2">
                   <span className="block">
-                    <span className="block text-sm font-semibold text-sage-700">In its favour</span>
+                    <span className="block text-sm font-semibold text-sage-700">{t("pros")}</span>
                     <span className="block"><ul className="list-disc pl-5 text-sm">{c.pros.map((p) => <li key={p}>{p}</li>)}</ul></span>
                   </span>
                   <span className="block">
-                    <span className="block text-sm font-semibold text-clay-700">Cautions</span>
+                    <span className="block text-sm font-semibold text-clay-700">{t("cautions")}</span>
                     <span className="block"><ul className="list-disc pl-5 text-sm">{c.cautions.map((p) => <li key={p}>{p}</li>)}</ul></span>
                   </span>
                 </span>
-                {c.provisionalOnly ? <span className="mt-2 block text-sm font-semibold text-clay-700">Temporary crown only: a final crown is still needed.</span> : null}
+                {c.provisionalOnly ? <span className="mt-2 block text-sm font-semibold text-clay-700">{t("provisionalOnly")}</span> : null}
               </span>
             </span>
           </label>
         ))}
-        <p className="text-sm text-ink-soft">The fee for this crown is {money(feeCents, currency)} whichever material you choose. Your dentist confirms the choice with you at the visit.</p>
+        <p className="text-sm text-ink-soft">{t("sameFee", { fee: money(feeCents, currency, locale) })}</p>
       </fieldset>
 
       {material && material.modes.length > 1 ? (
         <fieldset className="space-y-2">
-          <legend className="mb-2 text-lg font-semibold">2. Choose how it is finished</legend>
+          <legend className="mb-2 text-lg font-semibold">{t("chooseFinish")}</legend>
           {material.modes.map((m) => (
             <label key={m.mode} className="card flex cursor-pointer items-start gap-3 has-[:checked]:border-harbour-600 has-[:checked]:ring-2 has-[:checked]:ring-harbour-600">
               <input type="radio" name="mode" value={m.mode} checked={effectiveMode === m.mode} onChange={() => { setMode(m.mode); setSlot(null); }} className="mt-1.5 size-5 accent-harbour-600" />
               <span>
-                <span className="block font-semibold">{MODE_WORDS[m.mode].name} · about {duration(m.totalMinutes)}</span>
-                <span className="block text-sm text-ink-soft">{MODE_WORDS[m.mode].blurb} {m.finishing === "stain_glaze" ? "Stained and glazed." : "Polished."}</span>
+                <span className="block font-semibold">{t("modeLine", { mode: tm(`${m.mode}.name`), duration: duration(m.totalMinutes, locale) })}</span>
+                <span className="block text-sm text-ink-soft">{tm(`${m.mode}.blurb`)} {t("finishing", { finishing: m.finishing })}</span>
               </span>
             </label>
           ))}
         </fieldset>
       ) : material && modeInfo ? (
-        <p className="card text-sm"><strong>{MODE_WORDS[modeInfo.mode].name} finish</strong> · about {duration(modeInfo.totalMinutes)}. {MODE_WORDS[modeInfo.mode].blurb}</p>
+        <p className="card text-sm"><strong>{t("singleMode", { mode: tm(`${modeInfo.mode}.name`) })}</strong> · {tc("aboutDuration", { duration: duration(modeInfo.totalMinutes, locale) })}. {tm(`${modeInfo.mode}.blurb`)}</p>
       ) : null}
 
       {material && effectiveMode ? (
         <section className="space-y-3" aria-labelledby="when">
-          <h2 id="when" className="text-lg font-semibold">{material.modes.length > 1 ? "3" : "2"}. Pick a day and start time</h2>
+          <h2 id="when" className="text-lg font-semibold">{t("pickTime", { step: material.modes.length > 1 ? 3 : 2 })}</h2>
           <SlotPicker key={`${material.id}-${effectiveMode}`} proposalId={proposalId} materialId={material.id} mode={effectiveMode} timezone={timezone} selected={slot} onSelect={(s) => { setSlot(s); setError(null); }} />
         </section>
       ) : null}
@@ -131,16 +136,16 @@ export function BookingFlow({ proposalId, feeCents, currency, timezone, choices 
 
       {material && modeInfo && slot ? (
         <section className="card space-y-2 border-harbour-600" aria-labelledby="review">
-          <h2 id="review" className="text-lg font-semibold">Review</h2>
+          <h2 id="review" className="text-lg font-semibold">{t("review")}</h2>
           <dl className="grid grid-cols-[7rem_1fr] gap-y-1 text-sm">
-            <dt className="text-ink-muted">Material</dt><dd>{material.name}</dd>
-            <dt className="text-ink-muted">Finish</dt><dd>{MODE_WORDS[modeInfo.mode].name}</dd>
-            <dt className="text-ink-muted">Starts</dt><dd data-testid="review-start">{slot.label}</dd>
-            <dt className="text-ink-muted">Length</dt><dd>about {duration(modeInfo.totalMinutes)}; plan to stay the whole time</dd>
-            <dt className="text-ink-muted">Fee</dt><dd>{money(feeCents, currency)}</dd>
+            <dt className="text-ink-muted">{t("material")}</dt><dd>{material.name}</dd>
+            <dt className="text-ink-muted">{t("finish")}</dt><dd>{tm(`${modeInfo.mode}.name`)}</dd>
+            <dt className="text-ink-muted">{t("starts")}</dt><dd data-testid="review-start">{slot.label}</dd>
+            <dt className="text-ink-muted">{t("length")}</dt><dd>{t("lengthValue", { duration: duration(modeInfo.totalMinutes, locale) })}</dd>
+            <dt className="text-ink-muted">{t("fee")}</dt><dd>{money(feeCents, currency, locale)}</dd>
           </dl>
-          <p className="text-sm text-ink-soft">The clinic confirms your request. Before the visit you answer health questions and sign consent here.</p>
-          <button type="button" className="btn-primary w-full" onClick={book} disabled={submitting}>{submitting ? "Booking…" : "Request this visit"}</button>
+          <p className="text-sm text-ink-soft">{t("reviewNote")}</p>
+          <button type="button" className="btn-primary w-full" onClick={book} disabled={submitting}>{submitting ? t("requesting") : t("request")}</button>
         </section>
       ) : null}
     </div>

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { getTranslations } from "next-intl/server";
 import { notFound } from "next/navigation";
 import { CautionsNote } from "@/components/cautions-note";
 import { ConsentLink } from "@/components/consent/consent-link";
@@ -14,10 +15,15 @@ import { getVisitTimeline } from "@/lib/data/visits";
 import { findVisitFor, patientMayChange } from "@/lib/booking/transitions";
 import { withDefaults } from "@/lib/domain/clinic-settings";
 import { describeTooth } from "@/lib/domain/tooth";
-import { duration, MODE_WORDS, money, when } from "@/lib/format";
+import { duration, money, when } from "@/lib/format";
+import { formatList } from "@/lib/i18n/format";
+import { currentLocale } from "@/lib/i18n/server";
+import { toothWords } from "@/lib/i18n/tooth-words";
 import { AppError } from "@/lib/server/errors";
 
-export const metadata: Metadata = { title: "My visit" };
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("visit"))("title") };
+}
 
 export default async function PatientVisitPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePageUser(["patient"]);
@@ -33,43 +39,45 @@ export default async function PatientVisitPage({ params }: { params: Promise<{ i
   const { cancelCutoffHours, reminderHoursBefore } = withDefaults(clinic!.settings);
   const active = ["requested", "confirmed"].includes(visit.status);
   const canChange = patientMayChange(visit, cancelCutoffHours);
+  const locale = await currentLocale();
+  const t = await getTranslations();
 
   return (
     <div className="mx-auto max-w-read space-y-5">
-      <p><Link href="/patient">← My crown</Link></p>
+      <p><Link href="/patient">{t("visit.backHome")}</Link></p>
       <header className="space-y-1">
-        <p className="text-sm font-semibold text-harbour-700">Tooth {tooth.fdi} · Universal {tooth.universal}</p>
-        <h1 className="text-2xl font-bold first-letter:uppercase">{tooth.words}</h1>
+        <p className="text-sm font-semibold text-harbour-700">{t("common.toothLine", { fdi: tooth.fdi, universal: tooth.universal })}</p>
+        <h1 className="text-2xl font-bold first-letter:uppercase">{toothWords(tooth.fdi, locale)}</h1>
         <StatusBadge status={visit.status} />
       </header>
       <section className="card" aria-labelledby="summary">
-        <h2 id="summary" className="sr-only">Summary</h2>
+        <h2 id="summary" className="sr-only">{t("visit.summary")}</h2>
         <dl className="grid grid-cols-[6.5rem_1fr] gap-y-1">
-          <dt className="text-ink-muted">Starts</dt><dd data-testid="visit-start">{when(visit.startsAt, zone)}</dd>
-          <dt className="text-ink-muted">Length</dt><dd>about {duration(minutes)}</dd>
-          <dt className="text-ink-muted">Material</dt><dd>{material?.name}</dd>
-          <dt className="text-ink-muted">Finish</dt><dd>{MODE_WORDS[visit.mode].name}</dd>
-          <dt className="text-ink-muted">Fee</dt><dd>{money(visit.feeCents, clinic!.currency)}</dd>
-          <dt className="text-ink-muted">Where</dt><dd>{clinic!.name}, {clinic!.address}</dd>
+          <dt className="text-ink-muted">{t("visit.starts")}</dt><dd data-testid="visit-start">{when(visit.startsAt, zone, locale)}</dd>
+          <dt className="text-ink-muted">{t("visit.length")}</dt><dd>{t("common.aboutDuration", { duration: duration(minutes, locale) })}</dd>
+          <dt className="text-ink-muted">{t("visit.material")}</dt><dd>{material?.name}</dd>
+          <dt className="text-ink-muted">{t("visit.finish")}</dt><dd>{t(`modes.${visit.mode}.name`)}</dd>
+          <dt className="text-ink-muted">{t("visit.fee")}</dt><dd>{money(visit.feeCents, clinic!.currency, locale)}</dd>
+          <dt className="text-ink-muted">{t("visit.where")}</dt><dd>{clinic!.name}, {clinic!.address}</dd>
         </dl>
-        {visit.statusReason ? <p className="mt-2 text-sm">Note from the clinic: {visit.statusReason}</p> : null}
+        {visit.statusReason ? <p className="mt-2 text-sm">{t("visit.clinicNote", { note: visit.statusReason })}</p> : null}
       </section>
       {active ? (
         <section className="space-y-2" aria-labelledby="change">
-          <h2 id="change" className="text-lg font-semibold">Change this visit</h2>
+          <h2 id="change" className="text-lg font-semibold">{t("visit.change")}</h2>
           <VisitActions visitId={visit.id} proposalId={visit.proposalId} materialId={visit.materialId} mode={visit.mode} timezone={zone} canChange={canChange}
-            cutoffNote={`Changes online are possible until ${cancelCutoffHours} hours before the visit; after that, please call the clinic${clinic!.phone ? ` on ${clinic!.phone}` : ""}.`} />
+            cutoffNote={t("visit.cutoff", { hours: cancelCutoffHours, hasPhone: clinic!.phone ? "yes" : "no", phone: clinic!.phone ?? "" })} />
         </section>
       ) : null}
       <ConsentLink user={user} visitId={visit.id} />
       {active ? (
         <ReminderToggle appointmentId={visit.id} enabled={visit.remindersEnabled}
-          whenText={reminderHoursBefore.length ? `${reminderHoursBefore.map((h) => `${h} hours`).join(" and ")} before` : "before your visit"} />
+          whenText={reminderHoursBefore.length ? formatList(reminderHoursBefore.map((h) => t("reminders.hoursBefore", { hours: h })), locale) : undefined} />
       ) : null}
       {active ? <PreVisitNotes minutes={minutes} /> : null}
       <section className="card space-y-3" aria-labelledby="plan">
-        <h2 id="plan" className="text-lg font-semibold">How the visit is planned</h2>
-        <p className="text-sm text-ink-soft">An estimate: your dentist may adjust it on the day.</p>
+        <h2 id="plan" className="text-lg font-semibold">{t("visit.planned")}</h2>
+        <p className="text-sm text-ink-soft">{t("visit.estimate")}</p>
         <VisitTimeline timeline={timeline} />
       </section>
       <CautionsNote />
