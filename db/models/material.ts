@@ -3,7 +3,7 @@ import { sequelize } from "../sequelize";
 import type { Cementation, Fabrication, FinishingKind, HeatTreatment, Mode, ToothClass } from "@/lib/domain/types";
 
 export type MaterialTexts = { description: string; pros: string[]; cautions: string[] };
-export type MaterialTranslations = Partial<Record<"fr", MaterialTexts>>;
+export type MaterialTranslations = Partial<Record<"fr", MaterialTexts & { name?: string }>>;
 
 /** A crown material in a clinic's catalogue (generic names only). Editable data, not code. */
 export class Material extends Model<InferAttributes<Material>, InferCreationAttributes<Material>> {

@@ -39,6 +39,11 @@ export function formatLongDate(instant: Date | string, zone: string, locale: Loc
   return dateFormat(locale, zone, LONG_DATE).format(new Date(instant));
 }
 
+/** "Tuesday, July 14, 2026 at 9:30 a.m. EDT" / "mardi 14 juillet 2026 à 9 h 30 HAE": the visit in a consent text. */
+export function formatConsentDate(instant: Date | string, zone: string, locale: Locale): string {
+  return dateFormat(locale, zone, { weekday: "long", day: "numeric", month: "long", year: "numeric", hour: "numeric", minute: "2-digit", timeZoneName: "short" }).format(new Date(instant));
+}
+
 /** "08:00" / "08 h 00": 24-hour wall-clock time in the zone. */
 export function formatClock(instant: Date | string, zone: string, locale: Locale): string {
   return dateFormat(locale, zone, CLOCK).format(new Date(instant));

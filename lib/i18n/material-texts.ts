@@ -7,3 +7,8 @@ export function materialTexts(m: MaterialTexts & { translations?: MaterialTransl
   if (tr && tr.description.trim()) return { description: tr.description, pros: tr.pros, cautions: tr.cautions };
   return { description: m.description, pros: m.pros, cautions: m.cautions };
 }
+
+/** The material's generic name in the reader's language ("zircone"), else its English name. */
+export function materialName(m: { name: string; translations?: MaterialTranslations | null }, locale: Locale): string {
+  return (locale === "en" ? undefined : m.translations?.[locale]?.name?.trim()) || m.name;
+}
