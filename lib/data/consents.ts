@@ -1,5 +1,8 @@
 // Data access for informed consent: who may see or change which consent, then the core steps
 // in lib/consent/record.ts inside one transaction with their audit events.
+import { isLocale, type Locale } from "@/lib/i18n/locale";
+import { materialName } from "@/lib/i18n/material-texts";
+import { toothLabel } from "@/lib/i18n/tooth-words";
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
@@ -69,15 +72,14 @@ async function pdfVersions(consentId: string): Promise<PdfVersionSummary[]> {
   return rows.map((r) => ({ version: r.version, reason: r.reason, sha256: r.sha256, createdAt: r.createdAt }));
 }
 
-function visitSummary(ctx: VisitContext) {
-  const tooth = describeTooth(ctx.visit.tooth);
+function visitSummary(ctx: VisitContext, language: Locale = "en") {
   return {
     id: ctx.visit.id,
     status: ctx.visit.status,
     startsAt: ctx.visit.startsAt,
     timeZone: ctx.clinic.timeZone,
-    tooth: tooth.label,
-    material: ctx.material.name,
+    tooth: toothLabel(ctx.visit.tooth, language),
+    material: materialName(ctx.material, language),
     mode: ctx.visit.mode,
     dentist: ctx.dentist.name ?? ctx.dentist.email,
     patient: patientName(ctx),
@@ -112,7 +114,7 @@ export async function openConsentForPatient({ user, appointmentId, ip, userAgent
   const withdrawn = await Consent.findAll({ where: { appointmentId: visit.id, status: "withdrawn" }, order: [["withdrawnAt", "DESC"]] });
   const signed = live && live.status !== "pending" && live.consentText ? live : null;
   return {
-    visit: visitSummary(ctx),
+    visit: visitSummary(ctx, isLocale(ctx.patient.language) ? ctx.patient.language : "en"),
     patientName: patientName(ctx),
     consent: live ? { id: live.id, status: live.status as ConsentStatus, signedAt: live.signedAt, reviewedAt: live.reviewedAt, typedName: live.typedName } : null,
     signedDocument: signed ? parseConsentText(signed.consentText!) : null,
@@ -310,6 +312,7 @@ export async function staffConsentView({ user, appointmentId }: { user: SessionU
           typedName: live.typedName,
           templateVersion: live.templateVersion,
           textSha256: live.textSha256,
+          language: live.language,
           reviewedAt: live.reviewedAt,
           reviewer: reviewer ? reviewer.name ?? reviewer.email : null,
           flags: signed ? live.flags : [],

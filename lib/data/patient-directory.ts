@@ -4,10 +4,10 @@ import { Patient, User } from "@/db/models";
 import { isUuid } from "@/lib/domain/documents";
 import { notFound } from "@/lib/server/errors";
 
-export type PatientSummary = { id: string; name: string; email: string; dateOfBirth: string | null; phone: string | null };
+export type PatientSummary = { id: string; name: string; email: string; dateOfBirth: string | null; phone: string | null; language: "en" | "fr" };
 
 function summary(p: Patient): PatientSummary {
-  return { id: p.id, name: p.user?.name ?? p.user?.email ?? "Unnamed patient", email: p.user?.email ?? "", dateOfBirth: p.dateOfBirth, phone: p.phone };
+  return { id: p.id, name: p.user?.name ?? p.user?.email ?? "Unnamed patient", email: p.user?.email ?? "", dateOfBirth: p.dateOfBirth, phone: p.phone, language: p.language };
 }
 
 export async function listClinicPatients({ clinicId }: { clinicId: string }): Promise<PatientSummary[]> {

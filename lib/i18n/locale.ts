@@ -7,6 +7,8 @@ export const DEFAULT_LOCALE: Locale = "en";
 export const LOCALE_COOKIE = "cuspal-locale";
 
 export const LOCALE_NAMES: Record<Locale, string> = { en: "English", fr: "Français" };
+/** For the staff side, which stays in English: "French". */
+export const LOCALE_ENGLISH_NAMES: Record<string, string> = { en: "English", fr: "French" };
 
 /** Regional tag for Intl formatting: the clinic is Canadian by default, so Canadian usage. */
 export const INTL_TAG: Record<Locale, string> = { en: "en-CA", fr: "fr-CA" };

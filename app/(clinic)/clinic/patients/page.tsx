@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { requirePageUser, STAFF_ROLES } from "@/lib/auth/session";
 import { listClinicPatients } from "@/lib/data/patient-directory";
+import { LOCALE_ENGLISH_NAMES } from "@/lib/i18n/locale";
 
 export const metadata: Metadata = { title: "Patients" };
 
@@ -20,7 +21,7 @@ export default async function PatientsPage() {
               <li key={p.id} className="flex flex-col gap-1 py-3 sm:flex-row sm:items-center sm:justify-between">
                 <Link href={`/clinic/patients/${p.id}`} className="inline-flex min-h-6 items-center font-semibold">{p.name}</Link>
                 <span className="text-sm text-ink-muted">
-                  {p.email}{p.dateOfBirth ? ` · born ${p.dateOfBirth}` : ""}
+                  {p.email}{p.dateOfBirth ? ` · born ${p.dateOfBirth}` : ""} · <span data-testid="patient-language">{LOCALE_ENGLISH_NAMES[p.language]}</span>
                 </span>
               </li>
             ))}

@@ -6,6 +6,7 @@ import { findClinicPatient, type PatientSummary } from "@/lib/data/patient-direc
 import { AppError } from "@/lib/server/errors";
 import { PatientDocuments } from "./patient-documents";
 import { PatientBlocks } from "./patient-blocks";
+import { LOCALE_ENGLISH_NAMES } from "@/lib/i18n/locale";
 
 export const metadata: Metadata = { title: "Patient" };
 
@@ -28,6 +29,7 @@ export default async function PatientPage({ params }: { params: Promise<{ id: st
           <dt className="text-ink-muted">E-mail</dt>
           <dd>{patient.email}</dd>
           {patient.dateOfBirth ? (<><dt className="text-ink-muted">Date of birth</dt><dd>{patient.dateOfBirth}</dd></>) : null}
+          <dt className="text-ink-muted">Language</dt><dd data-testid="patient-language">{LOCALE_ENGLISH_NAMES[patient.language]}</dd>
           {patient.phone ? (<><dt className="text-ink-muted">Phone</dt><dd>{patient.phone}</dd></>) : null}
         </dl>
       </div>
