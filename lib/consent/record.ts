@@ -9,7 +9,7 @@ import { recordAudit } from "@/lib/server/audit";
 import { answerLines, questionnaireFlags, type ConsentFlag, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
 import { sha256Hex } from "@/lib/domain/consent-hash";
 import {
-  assembleConsent, consentText, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, ELECTRONIC_RECORDS, formatFee, formatInZone, modeLabel,
+  assembleConsent, consentText, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, formatInZone,
   parseConsentText, type AssembledConsent, type SectionKey, type VisitSummary,
 } from "@/lib/domain/consent-text";
 import { CONSENT_WORDS, type ConsentLanguage } from "@/lib/domain/consent-words";

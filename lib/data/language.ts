@@ -1,6 +1,6 @@
 // The patient's preferred language: read for every page and e-mail, changed by the patient.
 import "server-only";
-import { Patient, sequelize } from "@/db/models";
+import { Patient, User, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { DEFAULT_LOCALE, isLocale, type Locale } from "@/lib/i18n/locale";
 import { recordAudit } from "@/lib/server/audit";
@@ -9,6 +9,12 @@ import { forbidden, notFound } from "@/lib/server/errors";
 export async function patientLanguage(opts: { userId: string }): Promise<Locale> {
   const patient = await Patient.findOne({ where: { userId: opts.userId }, attributes: ["id", "language"] });
   return isLocale(patient?.language) ? patient.language : DEFAULT_LOCALE;
+}
+
+/** The language to write to an e-mail address in: its patient's preference, else English. */
+export async function languageForEmail(email: string): Promise<Locale> {
+  const user = await User.findOne({ where: { email: email.trim().toLowerCase() }, attributes: ["id"] });
+  return user ? patientLanguage({ userId: user.id }) : DEFAULT_LOCALE;
 }
 
 /** Saves the signed-in patient's own preference, with its audit event. */
