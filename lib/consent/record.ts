@@ -6,7 +6,7 @@ import {
   Appointment, AuditEvent, Clinic, Consent, ConsentPdf, ConsentTemplate, Material, Patient, User, sequelize,
 } from "@/db/models";
 import { recordAudit } from "@/lib/server/audit";
-import { answerLines, questionnaireFlags, type ConsentFlag, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
+import { questionnaireFlags, type ConsentFlag, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
 import { sha256Hex } from "@/lib/domain/consent-hash";
 import {
   assembleConsent, consentText, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, formatInZone,
@@ -18,6 +18,7 @@ import { jurisdictionOf } from "@/lib/domain/jurisdiction";
 import { formatConsentDate, formatMoney } from "@/lib/i18n/format";
 import { materialName, materialTexts } from "@/lib/i18n/material-texts";
 import { toothLabel } from "@/lib/i18n/tooth-words";
+import { answerLinesIn } from "@/lib/i18n/questionnaire";
 import { buildConsentPdf, type AuditLine } from "./pdf";
 import { sealPdf } from "./seal";
 
@@ -243,14 +244,14 @@ export async function issuePdf(consent: Consent, ctx: VisitContext, reason: "sig
     patientName: patientName(ctx),
     document,
     acknowledgedAll: (consent.acknowledged ?? []).length === document.sections.length,
-    answers: answerLines(consent.answers),
+    answers: answerLinesIn(consent.answers, document.language),
     flags: consent.flags,
     typedName: consent.typedName ?? "",
     signaturePng: consent.signaturePng,
-    signedAt: `${formatInZone(consent.signedAt, zone)} · ${consent.signedAt.toISOString()}`,
+    signedAt: `${formatConsentDate(consent.signedAt, zone, document.language)} · ${consent.signedAt.toISOString()}`,
     textSha256,
     audit: await auditLines(consent, zone, transaction),
-    review: consent.reviewedAt && reviewer ? { by: reviewer.name ?? reviewer.email, at: `${formatInZone(consent.reviewedAt, zone)} · ${consent.reviewedAt.toISOString()}` } : null,
+    review: consent.reviewedAt && reviewer ? { by: reviewer.name ?? reviewer.email, at: `${formatConsentDate(consent.reviewedAt, zone, document.language)} · ${consent.reviewedAt.toISOString()}` } : null,
     previous: previous ? { version: previous.version, sha256: previous.sha256 } : null,
     createdAt: at,
   });

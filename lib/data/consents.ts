@@ -340,6 +340,7 @@ export async function listTemplateVersions({ user }: { user: SessionUser }) {
     versions: rows.map((r) => ({
       id: r.id, version: r.version, title: r.title, status: r.status, publishedAt: r.publishedAt, withdrawnAt: r.withdrawnAt,
       sections: r.sections as TemplateSection[], signedCount: counts.get(r.id) ?? 0,
+      titleFr: r.titleFr, sectionsFr: r.sectionsFr as TemplateSection[] | null,
     })),
   };
 }
@@ -354,7 +355,8 @@ export async function publishTemplateVersion({ user, values, ip, userAgent }: { 
     const issue = parsed.error.issues[0];
     return { ok: false, error: issue?.message ?? "The consent text is not valid.", field: issue?.path.join(".") };
   }
-  const problems = templateProblems(parsed.data);
+  const fr = parsed.data.fr;
+  const problems = [...templateProblems(parsed.data), ...templateProblems(fr).map((p) => ({ ...p, field: `fr.${p.field}` }))];
   if (problems.length) return { ok: false, error: problems[0].message, field: problems[0].field };
   const clinicId = user.clinicId;
   const version = await sequelize.transaction(async (t) => {
@@ -364,7 +366,7 @@ export async function publishTemplateVersion({ user, values, ip, userAgent }: { 
     const last = (await ConsentTemplate.max<number, ConsentTemplate>("version", { where: { clinicId }, transaction: t })) ?? 0;
     if (current) await current.update({ status: "withdrawn", withdrawnAt: new Date() }, { transaction: t });
     const created = await ConsentTemplate.create(
-      { clinicId, version: last + 1, title: parsed.data.title, sections: parsed.data.sections, status: "published", createdBy: user.id },
+      { clinicId, version: last + 1, title: parsed.data.title, sections: parsed.data.sections, titleFr: fr.title, sectionsFr: fr.sections, status: "published", createdBy: user.id },
       { transaction: t },
     );
     await recordAudit(

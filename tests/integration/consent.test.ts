@@ -13,6 +13,7 @@ import { QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-q
 import { consentText, DEFAULT_SECTIONS, SECTION_KEYS } from "@/lib/domain/consent-text";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { DEFAULT_SECTIONS_FR, DEFAULT_TEMPLATE_TITLE_FR } from "@/lib/domain/consent-text-fr";
 
 const auth = vi.hoisted(() => ({ user: null as SessionUser | null }));
 vi.mock("@/lib/auth/session", async () => {
@@ -229,7 +230,16 @@ describe("signing", () => {
       user: auth.user!, ip: "198.51.100.2", userAgent: "ConsentTest/1.0",
       values: { title: "Consent to a same-day crown", sections: DEFAULT_SECTIONS.map((s) => (s.key === "costs" ? { ...s, body: `${s.body}\n\nPayment is due on the day.` } : s)) },
     });
-    expect(published).toEqual({ ok: true, version: 2 });
+    // Both languages are published together: without the French text nothing is published.
+    expect(published).toMatchObject({ ok: false, field: "fr" });
+    const bilingual = await publishTemplateVersion({
+      user: auth.user!, ip: "198.51.100.2", userAgent: "ConsentTest/1.0",
+      values: {
+        title: "Consent to a same-day crown", sections: DEFAULT_SECTIONS.map((s) => (s.key === "costs" ? { ...s, body: `${s.body}\n\nPayment is due on the day.` } : s)),
+        fr: { title: DEFAULT_TEMPLATE_TITLE_FR, sections: DEFAULT_SECTIONS_FR },
+      },
+    });
+    expect(bilingual).toEqual({ ok: true, version: 2 });
     expect((await ConsentTemplate.findByPk(old.templateId as string))!.status).toBe("withdrawn");
 
     as(user);
