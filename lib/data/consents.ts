@@ -3,6 +3,7 @@
 import { isLocale, type Locale } from "@/lib/i18n/locale";
 import { materialName } from "@/lib/i18n/material-texts";
 import { toothLabel } from "@/lib/i18n/tooth-words";
+import { jurisdictionOf } from "@/lib/domain/jurisdiction";
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
@@ -116,6 +117,8 @@ export async function openConsentForPatient({ user, appointmentId, ip, userAgent
   return {
     visit: visitSummary(ctx, isLocale(ctx.patient.language) ? ctx.patient.language : "en"),
     patientName: patientName(ctx),
+    /** How the clinic keeps health information, under its jurisdiction, in the patient's language. */
+    privacy: jurisdictionOf(ctx.clinic.jurisdiction).privacy[ctx.patient.language === "fr" ? "fr" : "en"],
     consent: live ? { id: live.id, status: live.status as ConsentStatus, signedAt: live.signedAt, reviewedAt: live.reviewedAt, typedName: live.typedName } : null,
     signedDocument: signed ? parseConsentText(signed.consentText!) : null,
     pdfVersions: signed ? await pdfVersions(signed.id) : [],

@@ -110,3 +110,17 @@ describe("the consent in French", () => {
     expect(jurisdictionOf("nowhere").code).toBe("CA-ON");
   });
 });
+
+describe("the default catalogue in French", () => {
+  it("gives every material a French name, description, pros and cautions, item for item", async () => {
+    const { CATALOGUE } = await import("@/db/seed/catalogue");
+    const { CATALOGUE_FR } = await import("@/db/seed/catalogue-fr");
+    for (const m of CATALOGUE) {
+      const fr = CATALOGUE_FR[m.key];
+      expect(fr, m.key).toBeDefined();
+      expect(fr.pros.length, m.key).toBe(m.pros.length);
+      expect(fr.cautions.length, m.key).toBe(m.cautions.length);
+      expect(fr.description).not.toBe(m.description);
+    }
+  });
+});

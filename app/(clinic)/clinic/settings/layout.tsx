@@ -8,6 +8,7 @@ const SECTIONS = [
   { href: "/clinic/settings/stage-times", label: "Estimated vs actual" },
   { href: "/clinic/settings/booking", label: "Booking and reminders" },
   { href: "/clinic/settings/staff", label: "Staff" },
+  { href: "/clinic/settings/jurisdiction", label: "Jurisdiction" },
 ];
 
 /** Settings are for the clinic manager only; every action checks the role again. */

@@ -84,6 +84,7 @@ export default async function PatientConsentPage({ params }: { params: Promise<{
       ) : (
         <p className="card">{t("closed")}</p>
       )}
+      <p className="text-sm text-ink-soft" data-testid="privacy-note">{view.privacy}</p>
       <CautionsNote />
     </div>
   );
