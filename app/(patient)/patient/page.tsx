@@ -9,6 +9,7 @@ import { patientOf } from "@/lib/data/access";
 import { listProposals } from "@/lib/data/proposals";
 import { listPatientVisits } from "@/lib/data/visits";
 import { toothWords } from "@/lib/i18n/tooth-words";
+import { materialName } from "@/lib/i18n/material-texts";
 import { money, when } from "@/lib/format";
 import { currentLocale } from "@/lib/i18n/server";
 
@@ -58,7 +59,7 @@ export default async function PatientHomePage() {
             {visits.map((v) => (
               <li key={v.id} className="card flex flex-wrap items-center justify-between gap-3">
                 <div>
-                  <p className="font-semibold first-letter:uppercase">{toothWords(v.tooth, locale)} · {v.material?.name}</p>
+                  <p className="font-semibold first-letter:uppercase">{toothWords(v.tooth, locale)} · {v.material ? materialName(v.material, locale) : null}</p>
                   <p className="text-sm text-ink-soft">{when(v.startsAt, zone, locale)}</p>
                   <div className="mt-1"><StatusBadge status={v.status} /></div>
                 </div>

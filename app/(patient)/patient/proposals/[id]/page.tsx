@@ -10,7 +10,7 @@ import { getProposal } from "@/lib/data/proposals";
 import { listMaterials } from "@/lib/data/materials";
 import { AppError } from "@/lib/server/errors";
 import { currentLocale } from "@/lib/i18n/server";
-import { materialTexts } from "@/lib/i18n/material-texts";
+import { materialName, materialTexts } from "@/lib/i18n/material-texts";
 import { toothWords } from "@/lib/i18n/tooth-words";
 import { BookingFlow, type MaterialChoice } from "./booking-flow";
 
@@ -41,7 +41,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ id: s
       const { timeline, materialMode } = await loadTimeline({ clinicId: row.clinicId, materialId: m.id, mode, tooth: row.tooth });
       modes.push({ mode, totalMinutes: timeline.totalMinutes, finishing: materialMode.finishing });
     }
-    choices.push({ id: m.id, name: m.name, ...materialTexts(m, locale), heatTreatment: m.heatTreatment, provisionalOnly: m.indications.provisionalOnly, modes });
+    choices.push({ id: m.id, name: materialName(m, locale), ...materialTexts(m, locale), heatTreatment: m.heatTreatment, provisionalOnly: m.indications.provisionalOnly, modes });
   }
 
   return (

@@ -19,6 +19,7 @@ import { duration, money, when } from "@/lib/format";
 import { formatList } from "@/lib/i18n/format";
 import { currentLocale } from "@/lib/i18n/server";
 import { toothWords } from "@/lib/i18n/tooth-words";
+import { materialName } from "@/lib/i18n/material-texts";
 import { AppError } from "@/lib/server/errors";
 
 export async function generateMetadata(): Promise<Metadata> {
@@ -55,7 +56,7 @@ export default async function PatientVisitPage({ params }: { params: Promise<{ i
         <dl className="grid grid-cols-[6.5rem_1fr] gap-y-1">
           <dt className="text-ink-muted">{t("visit.starts")}</dt><dd data-testid="visit-start">{when(visit.startsAt, zone, locale)}</dd>
           <dt className="text-ink-muted">{t("visit.length")}</dt><dd>{t("common.aboutDuration", { duration: duration(minutes, locale) })}</dd>
-          <dt className="text-ink-muted">{t("visit.material")}</dt><dd>{material?.name}</dd>
+          <dt className="text-ink-muted">{t("visit.material")}</dt><dd>{material ? materialName(material, locale) : null}</dd>
           <dt className="text-ink-muted">{t("visit.finish")}</dt><dd>{t(`modes.${visit.mode}.name`)}</dd>
           <dt className="text-ink-muted">{t("visit.fee")}</dt><dd>{money(visit.feeCents, clinic!.currency, locale)}</dd>
           <dt className="text-ink-muted">{t("visit.where")}</dt><dd>{clinic!.name}, {clinic!.address}</dd>
