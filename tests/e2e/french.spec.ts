@@ -10,8 +10,10 @@ const catcher = process.env.MAIL_CATCHER_URL;
 // Common English words of our UI; none may appear on a French page ([C] our own list, no source).
 const ENGLISH_WORDS = ["Sign in", "Password", "Your", "visit", "Book", "Hello", "the", "and", "with", "Compare", "Documents are", "Cancel", "Language"];
 
+/** The page's visible text without what people typed (a dentist's note is in whatever language they wrote it). */
 async function visibleText(page: Page): Promise<string> {
-  return page.locator("body").innerText();
+  const typed = await page.locator("[data-free-text]").allInnerTexts();
+  return typed.reduce((text, t) => text.split(t).join(" "), await page.locator("body").innerText());
 }
 
 function englishWordsIn(text: string): string[] {
@@ -99,8 +101,10 @@ test("a French-speaking patient books, signs and is written to in French", async
     await expect(page.getByTestId("section-material")).toContainText("Votre matériau : Zircone");
     for (const tick of await page.getByRole("checkbox", { name: "J'ai lu et compris cette partie" }).all()) await tick.check();
     await page.getByRole("button", { name: "Continuer vers la signature" }).click();
+    await expect(page.getByRole("heading", { name: "Étape 3 sur 3 : Signer" })).toBeFocused();
     await page.getByRole("checkbox", { name: "J'accepte de signer et de recevoir ces documents par voie électronique" }).check();
     await page.getByLabel("Tapez votre nom complet").fill("Zoë Halvorsen-Ruiz");
+    await page.getByTestId("signature-canvas").scrollIntoViewIfNeeded();
     await drawSignature(page);
     expect(englishWordsIn(await visibleText(page))).toEqual([]);
     await page.screenshot({ path: "test-results/french-sign-390.png", fullPage: true });

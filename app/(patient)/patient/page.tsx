@@ -41,7 +41,7 @@ export default async function PatientHomePage() {
               <li key={p.id} className="card">
                 <p className="text-sm font-semibold text-harbour-700">{tc("toothLine", { fdi: p.tooth.fdi, universal: p.tooth.universal })}</p>
                 <h3 className="text-lg font-semibold first-letter:uppercase">{toothWords(p.tooth.fdi, locale)}</h3>
-                {p.note ? <p className="mt-1 text-ink-soft">{p.note}</p> : null}
+                {p.note ? <p className="mt-1 text-ink-soft" data-free-text>{p.note}</p> : null}
                 <p className="mt-2 text-sm">{t("materialsAndFee", { count: p.materials.length, fee: money(p.feeCents, clinic!.currency, locale) })}</p>
                 <Link href={`/patient/proposals/${p.id}`} className="btn-primary mt-3 w-full sm:w-auto">{t("compareAndBook")}</Link>
               </li>

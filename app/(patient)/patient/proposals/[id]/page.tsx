@@ -50,7 +50,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ id: s
       <header>
         <p className="text-sm font-semibold text-harbour-700">{t("common.toothLine", { fdi: view.tooth.fdi, universal: view.tooth.universal })}</p>
         <h1 className="text-2xl font-bold first-letter:uppercase">{toothWords(view.tooth.fdi, locale)}</h1>
-        {view.note ? <p className="mt-1 text-ink-soft">{t("proposal.dentistNote", { dentist: view.dentist.name ?? "", note: view.note })}</p> : null}
+        {view.note ? <p className="mt-1 text-ink-soft" data-free-text>{t("proposal.dentistNote", { dentist: view.dentist.name ?? "", note: view.note })}</p> : null}
       </header>
       <BookingFlow locale={locale} proposalId={view.id} feeCents={view.feeCents} currency={clinic.currency} timezone={clinic.timeZone} choices={choices} />
       <CautionsNote />
