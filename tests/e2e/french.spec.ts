@@ -49,6 +49,17 @@ test("a French-speaking patient books, signs and is written to in French", async
   test.setTimeout(240_000);
   let visitId: string | null = null;
   let staff: BrowserContext | null = null;
+  // An open proposal of its own (tooth 36, the same materials as the seeded one), so the journey does
+  // not depend on whether an earlier test already booked the seeded proposal.
+  const [proposal] = await query<{ id: string }>(
+    `WITH src AS (SELECT pr.* FROM proposals pr JOIN patients p ON p.id = pr.patient_id JOIN users u ON u.id = p.user_id
+                   WHERE u.email = 'patient@cuspal.test' AND pr.tooth = 36 ORDER BY pr.created_at LIMIT 1),
+          made AS (INSERT INTO proposals (clinic_id, patient_id, dentist_id, tooth, fee_cents, note)
+                   SELECT clinic_id, patient_id, dentist_id, tooth, fee_cents, NULL FROM src RETURNING id),
+          mats AS (INSERT INTO proposal_materials (proposal_id, material_id, modes)
+                   SELECT made.id, pm.material_id, pm.modes FROM made, proposal_materials pm JOIN src ON pm.proposal_id = src.id)
+     SELECT id FROM made`,
+  );
   try {
     // Signed out, the browser's Accept-Language decides.
     await page.goto("/sign-in");
@@ -71,7 +82,7 @@ test("a French-speaking patient books, signs and is written to in French", async
     expect(englishWordsIn(await visibleText(page))).toEqual([]);
 
     // Book the open proposal in French.
-    await page.getByRole("link", { name: "Comparer et réserver" }).first().click();
+    await page.goto(`/patient/proposals/${proposal.id}`);
     await expect(page.getByRole("heading", { level: 1 })).toHaveText(/première molaire inférieure gauche/i);
     await page.getByRole("radio", { name: /Zircone/ }).check();
     await page.getByRole("radio", { name: /Standard/ }).check();
@@ -135,6 +146,7 @@ test("a French-speaking patient books, signs and is written to in French", async
     // Reception may cancel at any time before the visit starts (the patient only until the cut-off).
     if (visitId && staff) await staff.request.post(`/api/appointments/${visitId}/cancel`, { data: { reason: "End of the test run." } });
     await staff?.close();
+    await query("UPDATE proposals SET status = 'closed' WHERE id = $1", [proposal.id]);
     await query("UPDATE patients SET language = 'en' WHERE user_id = (SELECT id FROM users WHERE email = 'patient@cuspal.test')");
   }
 });
