@@ -1,28 +1,32 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import { connection } from "next/server";
+import { NextIntlClientProvider } from "next-intl";
+import { getLocale, getTranslations } from "next-intl/server";
 import "./globals.css";
 
 // Geist (SIL Open Font License), shipped in public/fonts: nothing is fetched from a font service.
 const geist = localFont({ src: "../public/fonts/Geist-Variable.woff2", variable: "--font-geist", display: "swap", weight: "100 900" });
 
-export const metadata: Metadata = {
-  title: { default: "Cuspal — same-day crown visits", template: "%s · Cuspal" },
-  description: "Plan, book and consent to a single-visit crown with your clinic.",
-};
+export async function generateMetadata(): Promise<Metadata> {
+  const t = await getTranslations("meta");
+  return { title: { default: t("title"), template: "%s · Cuspal" }, description: t("description") };
+}
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#0d6e6e" };
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
   // Every page is rendered per request, so each one carries the nonce of its Content-Security-Policy.
   await connection();
+  const locale = await getLocale();
+  const t = await getTranslations("common");
   return (
-    <html lang="en" className={geist.variable}>
+    <html lang={locale} className={geist.variable}>
       <body className="min-h-dvh font-sans">
         <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:p-2">
-          Skip to content
+          {t("skipToContent")}
         </a>
-        {children}
+        <NextIntlClientProvider>{children}</NextIntlClientProvider>
       </body>
     </html>
   );

@@ -1,12 +1,14 @@
 "use client";
 
 import { signOut } from "next-auth/react";
+import { useTranslations } from "next-intl";
 import { signOutEverywhereAction } from "./account/sign-out-everywhere-action";
 
 export function SignOutButton() {
+  const t = useTranslations("common");
   return (
     <button type="button" className="btn-quiet min-h-10 px-3 text-sm" onClick={() => signOut({ callbackUrl: "/" })}>
-      Sign out
+      {t("signOut")}
     </button>
   );
 }

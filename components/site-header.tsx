@@ -1,13 +1,16 @@
 import Link from "next/link";
+import { getTranslations } from "next-intl/server";
 import type { SessionUser } from "@/lib/auth/session";
 import { Brand } from "./brand";
+import { LanguageSwitcher } from "./i18n/language-switcher";
 import { SignOutButton, SignOutEverywhereButton } from "./sign-out-button";
 
 const ROLE_LABEL = { patient: "Patient", reception: "Reception", dentist: "Dentist", admin: "Clinic manager" } as const;
 
 export type NavItem = { href: string; label: string };
 
-export function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: NavItem[] }) {
+export async function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: NavItem[] }) {
+  const t = await getTranslations("common");
   return (
     <header className="border-b border-line bg-white">
       <div className="mx-auto flex max-w-page flex-wrap items-center justify-between gap-3 px-gutter py-3">
@@ -15,8 +18,9 @@ export function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: NavIte
         <div className="flex items-center gap-3">
           <p className="text-right text-sm leading-tight">
             <span className="block font-semibold" data-testid="signed-in-name">{user.name ?? user.email}</span>
-            <span className="text-ink-muted">{ROLE_LABEL[user.role]}</span>
+            <span className="text-ink-muted">{user.role === "patient" ? t("patientRole") : ROLE_LABEL[user.role]}</span>
           </p>
+          {user.role === "patient" ? <LanguageSwitcher /> : null}
           <SignOutButton />
           <details className="relative">
             <summary className="btn-quiet min-h-10 cursor-pointer list-none px-3 text-sm">Account</summary>
@@ -30,7 +34,7 @@ export function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: NavIte
         </div>
       </div>
       {nav.length > 0 ? (
-        <nav aria-label="Sections" className="mx-auto max-w-page overflow-x-auto px-gutter">
+        <nav aria-label={t("sections")} className="mx-auto max-w-page overflow-x-auto px-gutter">
           <ul className="flex gap-1 pb-2">
             {nav.map((item) => (
               <li key={item.href}>

@@ -1,13 +1,14 @@
 import { Text } from "@react-email/components";
 import { EmailButton } from "./parts/button";
 import { EmailLayout } from "./parts/layout";
+import { emailTranslator, type EmailT } from "@/lib/i18n/email";
 
-export default function SignInLinkEmail({ url }: { url: string }) {
+export default function SignInLinkEmail({ url, t = emailTranslator("en") }: { url: string; t?: EmailT }) {
   return (
-    <EmailLayout preview="Your link to sign in to Cuspal">
-      <Text>Tap the button to sign in to your crown visit portal. The link works once and expires in 30 minutes.</Text>
-      <EmailButton href={url}>Sign in to Cuspal</EmailButton>
-      <Text style={{ fontSize: 13 }}>If you did not ask for this link, ignore this e-mail; nobody can sign in without it.</Text>
+    <EmailLayout t={t} preview={t("signIn.preview")}>
+      <Text>{t("signIn.body")}</Text>
+      <EmailButton href={url}>{t("signIn.button")}</EmailButton>
+      <Text style={{ fontSize: 13 }}>{t("signIn.ignore")}</Text>
     </EmailLayout>
   );
 }

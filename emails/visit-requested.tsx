@@ -1,21 +1,19 @@
 import { Text } from "@react-email/components";
 import { EmailButton } from "./parts/button";
 import { EmailLayout } from "./parts/layout";
-import { EmailHeading, Greeting, SmallPrint, VisitDetails, type VisitMailProps } from "./parts/visit-details";
+import { EmailHeading, Greeting, SmallPrint, VisitDetails, type VisitMailProps, wordsOf } from "./parts/visit-details";
 
 export default function VisitRequestedEmail(props: VisitMailProps) {
   const { clinic, patientName, visitUrl } = props;
+  const t = wordsOf(props);
   return (
-    <EmailLayout preview="Your crown visit request is with the clinic" clinicName={clinic.name} clinicAddress={clinic.address} clinicPhone={clinic.phone}>
-      <EmailHeading>Your visit request is with the clinic</EmailHeading>
-      <Greeting name={patientName} />
-      <Text>
-        Thank you. Reception will check the time you asked for and confirm it, or get in touch about another time. Nothing is
-        booked until you receive the confirmation e-mail.
-      </Text>
+    <EmailLayout t={t} preview={t("requested.preview")} clinicName={clinic.name} clinicAddress={clinic.address} clinicPhone={clinic.phone}>
+      <EmailHeading>{t("requested.heading")}</EmailHeading>
+      <Greeting name={patientName} t={t} />
+      <Text>{t("requested.body")}</Text>
       <VisitDetails {...props} />
-      <EmailButton href={visitUrl}>See your visit</EmailButton>
-      <SmallPrint>You can cancel the request from your visit page at any time before it is confirmed.</SmallPrint>
+      <EmailButton href={visitUrl}>{t("seeVisit")}</EmailButton>
+      <SmallPrint>{t("requested.small")}</SmallPrint>
     </EmailLayout>
   );
 }

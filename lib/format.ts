@@ -1,24 +1,23 @@
-// Formatting for people: money, durations, times in the clinic's zone.
-import { formatLocal, zoneAbbreviation } from "@/lib/domain/time-zone";
+// Formatting for people: money, durations, times in the clinic's zone. Thin wrappers over
+// lib/i18n/format.ts; staff pages use the English default, patient pages pass their locale.
+import { formatClock, formatDateTime, formatDuration, formatMoney } from "@/lib/i18n/format";
+import type { Locale } from "@/lib/i18n/locale";
 
-export function money(cents: number, currency = "CAD"): string {
-  return new Intl.NumberFormat("en-CA", { style: "currency", currency }).format(cents / 100);
+export function money(cents: number, currency = "CAD", locale: Locale = "en"): string {
+  return formatMoney(cents, currency, locale);
 }
 
 /** 167 → "2 h 47 min" */
-export function duration(minutes: number): string {
-  const h = Math.floor(minutes / 60);
-  const m = minutes % 60;
-  return h ? (m ? `${h} h ${m} min` : `${h} h`) : `${m} min`;
+export function duration(minutes: number, locale: Locale = "en"): string {
+  return formatDuration(minutes, locale);
 }
 
-export function when(instant: Date | string, zone: string): string {
-  const d = new Date(instant);
-  return `${formatLocal(d, zone)} ${zoneAbbreviation(d, zone)}`;
+export function when(instant: Date | string, zone: string, locale: Locale = "en"): string {
+  return formatDateTime(instant, zone, locale);
 }
 
-export function clock(instant: Date | string, zone: string): string {
-  return new Intl.DateTimeFormat("en-CA", { timeZone: zone, hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(new Date(instant));
+export function clock(instant: Date | string, zone: string, locale: Locale = "en"): string {
+  return formatClock(instant, zone, locale);
 }
 
 export const MODE_WORDS = {

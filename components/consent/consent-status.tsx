@@ -1,3 +1,4 @@
+import { useTranslations } from "next-intl";
 import type { ConsentStatus } from "@/lib/domain/types";
 
 // Our palette; the words carry the meaning and colour only supports them.
@@ -10,5 +11,6 @@ const STATUS: Record<ConsentStatus, { label: string; tone: string }> = {
 
 export function ConsentStatusChip({ status }: { status: ConsentStatus }) {
   const s = STATUS[status];
-  return <span className={`chip ${s.tone}`} data-testid="consent-status">{s.label}</span>;
+  const t = useTranslations("consentStatus");
+  return <span className={`chip ${s.tone}`} data-testid="consent-status">{t(status)}</span>;
 }

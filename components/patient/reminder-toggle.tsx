@@ -1,5 +1,6 @@
 "use client";
 // A switch on the patient's visit page: e-mail reminders before this visit, on or off.
+import { useTranslations } from "next-intl";
 import { useId, useState, useTransition } from "react";
 import { setRemindersAction } from "./reminder-toggle-action";
 import { reminderToggleSchema } from "./reminder-toggle-schema";
@@ -7,11 +8,12 @@ import { reminderToggleSchema } from "./reminder-toggle-schema";
 type Props = {
   appointmentId: string;
   enabled: boolean;
-  /** e.g. "48 hours and 2 hours before" */
+  /** e.g. "48 hours and 2 hours" (the sentence adds "before the visit") */
   whenText?: string;
 };
 
-export function ReminderToggle({ appointmentId, enabled: initial, whenText = "before your visit" }: Props) {
+export function ReminderToggle({ appointmentId, enabled: initial, whenText }: Props) {
+  const t = useTranslations("reminders");
   const [enabled, setEnabled] = useState(initial);
   const [error, setError] = useState<string | null>(null);
   const [pending, start] = useTransition();
@@ -34,9 +36,9 @@ export function ReminderToggle({ appointmentId, enabled: initial, whenText = "be
     <div className="card space-y-2" data-testid="reminder-toggle">
       <div className="flex items-center justify-between gap-4">
         <div>
-          <p id={labelId} className="font-semibold">E-mail reminders</p>
+          <p id={labelId} className="font-semibold">{t("title")}</p>
           <p id={statusId} className="text-sm text-ink-soft" aria-live="polite">
-            {pending ? "Saving…" : enabled ? `On: we e-mail you ${whenText}, with what to do before the visit.` : "Off: you will not get reminders for this visit."}
+            {pending ? t("saving") : enabled ? (whenText ? t("on", { when: whenText }) : t("onDefault")) : t("off")}
           </p>
         </div>
         <button

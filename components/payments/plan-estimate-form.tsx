@@ -2,6 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
+import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
@@ -13,6 +14,7 @@ type Output = z.output<typeof planEstimateSchema>;
 /** Dental-plan figures from the patient or staff; the shares are computed on the server. */
 export function PlanEstimateForm({ proposalId, initial }: { proposalId: string; initial: Partial<Record<keyof Input, string>> }) {
   const router = useRouter();
+  const t = useTranslations("payments.planForm");
   const [status, setStatus] = useState<string | null>(null);
   const { register, handleSubmit, getValues, formState: { errors, isSubmitting } } = useForm<Input, unknown, Output>({ resolver: zodResolver(planEstimateSchema), defaultValues: initial as unknown as Input });
 
@@ -20,11 +22,11 @@ export function PlanEstimateForm({ proposalId, initial }: { proposalId: string; 
   async function onSubmit() {
     const res = await fetch(`/api/proposals/${proposalId}/plan-estimate`, { method: "PUT", headers: { "content-type": "application/json" }, body: JSON.stringify(getValues()) });
     const body = await res.json().catch(() => ({}));
-    setStatus(res.ok ? "Saved. The estimate below is updated." : body.error ?? "That did not save. Please try again.");
+    setStatus(res.ok ? t("saved") : body.error ?? t("failed"));
     if (res.ok) router.refresh();
   }
 
-  const field = (name: keyof Input, label: string, hint: string, inputMode: "numeric" | "decimal" | "text") => (
+  const field = (name: keyof Input, inputMode: "numeric" | "decimal" | "text", label = t(`${name}.label`), hint = t(`${name}.hint`)) => (
     <div>
       <label htmlFor={`plan-${name}`} className="field-label">{label}</label>
       <input id={`plan-${name}`} className="field-input" inputMode={inputMode} aria-describedby={`plan-${name}-hint`} aria-invalid={errors[name] ? true : undefined} {...register(name)} />
@@ -35,11 +37,11 @@ export function PlanEstimateForm({ proposalId, initial }: { proposalId: string; 
 
   return (
     <form className="space-y-3" onSubmit={handleSubmit(onSubmit)} noValidate>
-      {field("coveragePercent", "Coverage for major restorative work (%)", "The share your plan pays for crowns, e.g. 50.", "numeric")}
-      {field("deductibleRemaining", "Deductible remaining this year", "What you still pay yourself before the plan starts paying, e.g. 50.", "decimal")}
-      {field("annualMaxRemaining", "Annual maximum remaining", "What the plan can still pay this year, e.g. 1500.", "decimal")}
-      {field("preauthReference", "Pre-authorisation reference (optional)", "If your plan gave you one for this crown.", "text")}
-      <button type="submit" className="btn-quiet" disabled={isSubmitting}>{isSubmitting ? "Saving…" : "Save the estimate"}</button>
+      {field("coveragePercent", "numeric")}
+      {field("deductibleRemaining", "decimal")}
+      {field("annualMaxRemaining", "decimal")}
+      {field("preauthReference", "text")}
+      <button type="submit" className="btn-quiet" disabled={isSubmitting}>{isSubmitting ? t("saving") : t("save")}</button>
       {status ? <p role="status" className="text-sm">{status}</p> : null}
     </form>
   );

@@ -1,42 +1,41 @@
 // The money part of a visit page: fee, dental-plan estimate, deposit and balance. Shared by the
-// patient's and the clinic's visit pages; the actions differ by who is looking.
+// patient's and the clinic's visit pages (staff read it in English); the actions differ by who is looking.
+import { createTranslator } from "next-intl";
 import type { ReactNode } from "react";
 import type { getVisitMoney } from "@/lib/data/payments";
-import { DEPOSIT_WORDS, UNPAID_HOLD_MINUTES } from "@/lib/domain/money";
+import { UNPAID_HOLD_MINUTES } from "@/lib/domain/money";
 import { money, when } from "@/lib/format";
+import type { Locale } from "@/lib/i18n/locale";
+import { messagesFor } from "@/lib/i18n/messages";
 
 type Money = Awaited<ReturnType<typeof getVisitMoney>>["money"];
 
-export const PLAN_CAUTION = "This is an estimate from the figures entered here, not your dental plan's decision. The plan's own decision prevails; ask your plan for a pre-authorisation if you need certainty.";
-
-export function VisitMoney({ m, zone, children, returned }: { m: Money; zone: string; children?: ReactNode; returned?: boolean }) {
+export function VisitMoney({ m, zone, locale = "en", children, returned }: { m: Money; zone: string; locale?: Locale; children?: ReactNode; returned?: boolean }) {
+  const t = createTranslator({ locale, messages: messagesFor(locale), namespace: "payments" });
   const d = m.deposit;
+  const cash = (cents: number, currency = m.currency) => money(cents, currency, locale);
   return (
     <section className="card space-y-3" aria-labelledby="money" data-testid="visit-money">
-      <h2 id="money" className="text-lg font-semibold">Fee and deposit</h2>
+      <h2 id="money" className="text-lg font-semibold">{t("moneyHeading")}</h2>
       <dl className="grid grid-cols-[10rem_1fr] gap-y-1 text-sm">
-        <dt className="text-ink-muted">Fee</dt><dd>{money(m.feeCents, m.currency)}</dd>
+        <dt className="text-ink-muted">{t("fee")}</dt><dd>{cash(m.feeCents)}</dd>
         {m.planShareEstimateCents !== null ? (
           <>
-            <dt className="text-ink-muted">Plan share (estimate)</dt><dd>{money(m.planShareEstimateCents, m.currency)}</dd>
-            <dt className="text-ink-muted">Your share (estimate)</dt><dd>{money(m.patientShareCents, m.currency)}</dd>
+            <dt className="text-ink-muted">{t("planShare")}</dt><dd>{cash(m.planShareEstimateCents)}</dd>
+            <dt className="text-ink-muted">{t("yourShare")}</dt><dd>{cash(m.patientShareCents)}</dd>
           </>
         ) : null}
-        <dt className="text-ink-muted">Deposit</dt>
-        <dd data-testid="deposit-status">{d.status === "none" ? DEPOSIT_WORDS.none : `${DEPOSIT_WORDS[d.status]} · ${money(d.amountCents, d.currency)}`}{d.paidAt ? ` · ${when(d.paidAt, zone)}` : ""}</dd>
+        <dt className="text-ink-muted">{t("deposit")}</dt>
+        <dd data-testid="deposit-status">{d.status === "none" ? t(`depositStatus.${d.status}`) : `${t(`depositStatus.${d.status}`)} · ${cash(d.amountCents, d.currency)}`}{d.paidAt ? ` · ${when(d.paidAt, zone, locale)}` : ""}</dd>
         {m.deskPayments.map((p) => (
-          <div key={p.id} className="contents"><dt className="text-ink-muted">Paid at the desk</dt><dd>{money(p.amountCents, p.currency)} · {p.method}{p.reference ? ` · ${p.reference}` : ""}</dd></div>
+          <div key={p.id} className="contents"><dt className="text-ink-muted">{t("paidAtDesk")}</dt><dd>{cash(p.amountCents, p.currency)} · {p.method}{p.reference ? ` · ${p.reference}` : ""}</dd></div>
         ))}
-        <dt className="font-semibold">Balance due{m.planShareEstimateCents !== null ? " (estimate)" : ""}</dt><dd className="font-semibold" data-testid="balance-due">{money(m.balanceDueCents, m.currency)}</dd>
+        <dt className="font-semibold">{t("balanceDue", { estimate: m.planShareEstimateCents !== null ? "yes" : "no" })}</dt><dd className="font-semibold" data-testid="balance-due">{cash(m.balanceDueCents)}</dd>
       </dl>
-      {d.status === "due" && returned ? (
-        <p role="status" className="rounded-lg bg-harbour-50 p-3 text-sm">We are waiting for the payment service to confirm your payment. This page shows it as paid within a minute; reload it if it does not.</p>
-      ) : null}
-      {d.status === "due" ? (
-        <p className="text-sm">The clinic asks a deposit of {money(d.amountCents, d.currency)} to hold the chair, the mill and the furnace for your visit. If it is not paid within {UNPAID_HOLD_MINUTES} minutes of booking, the time is released and offered to others.</p>
-      ) : null}
+      {d.status === "due" && returned ? <p role="status" className="rounded-lg bg-harbour-50 p-3 text-sm">{t("waitingForPayment")}</p> : null}
+      {d.status === "due" ? <p className="text-sm">{t("depositDue", { amount: cash(d.amountCents, d.currency), minutes: UNPAID_HOLD_MINUTES })}</p> : null}
       {children}
-      {m.planShareEstimateCents !== null ? <p className="text-xs text-ink-soft">{PLAN_CAUTION}</p> : null}
+      {m.planShareEstimateCents !== null ? <p className="text-xs text-ink-soft">{t("planCaution")}</p> : null}
     </section>
   );
 }

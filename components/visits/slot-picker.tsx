@@ -1,6 +1,9 @@
 "use client";
 
+import { useLocale, useTranslations } from "next-intl";
 import { useEffect, useState } from "react";
+import { formatDay } from "@/lib/i18n/format";
+import { isLocale, type Locale } from "@/lib/i18n/locale";
 
 export type SlotOption = { start: string; end: string; label: string };
 
@@ -17,8 +20,8 @@ type Props = {
 
 const DAYS = 14;
 
-function dayLabel(date: string) {
-  return new Intl.DateTimeFormat("en-CA", { weekday: "short", day: "numeric", month: "short", timeZone: "UTC" }).format(new Date(`${date}T12:00:00Z`));
+function dayLabel(date: string, locale: Locale) {
+  return formatDay(date, locale);
 }
 
 function nextDay(date: string) {
@@ -30,6 +33,9 @@ function nextDay(date: string) {
 /** Days with free start times, then the times of the chosen day. Times are shown as the
  *  clinic's wall clock (the API gives them with the clinic's offset). */
 export function SlotPicker({ proposalId, materialId, mode, timezone, selected, onSelect, endpoint }: Props) {
+  const t = useTranslations("slots");
+  const current = useLocale();
+  const locale: Locale = isLocale(current) ? current : "en";
   const [slots, setSlots] = useState<{ start: string; end: string }[]>([]);
   const [from, setFrom] = useState<string | null>(null);
   const [lastDay, setLastDay] = useState<string | null>(null);
@@ -64,24 +70,24 @@ export function SlotPicker({ proposalId, materialId, mode, timezone, selected, o
 
   return (
     <div className="space-y-3" data-testid="slot-picker">
-      <p className="text-sm text-ink-soft">Times are the clinic&apos;s local time ({timezone.replace("_", " ")}).</p>
-      {state === "loading" && slots.length === 0 ? <p aria-live="polite">Looking for free times…</p> : null}
-      {state === "error" ? <p role="alert" className="text-clay-700">Free times could not be loaded. Check your connection and try again.</p> : null}
-      {state === "ready" && slots.length === 0 ? <p>No free times in the next two weeks for this choice. Try another finish or later dates.</p> : null}
+      <p className="text-sm text-ink-soft">{t("zoneNote", { zone: timezone.replace("_", " ") })}</p>
+      {state === "loading" && slots.length === 0 ? <p aria-live="polite">{t("loading")}</p> : null}
+      {state === "error" ? <p role="alert" className="text-clay-700">{t("error")}</p> : null}
+      {state === "ready" && slots.length === 0 ? <p>{t("none")}</p> : null}
       {days.length ? (
-        <div role="group" aria-label="Days with free times" className="-mx-1 flex gap-2 overflow-x-auto px-1 pb-1">
+        <div role="group" aria-label={t("days")} className="-mx-1 flex gap-2 overflow-x-auto px-1 pb-1">
           {days.map((d) => (
             <button key={d} type="button" aria-pressed={d === activeDay} onClick={() => setDay(d)}
               className={`btn shrink-0 border ${d === activeDay ? "border-harbour-600 bg-harbour-600 text-white" : "border-line bg-white text-ink"}`}>
-              {dayLabel(d)}
+              {dayLabel(d, locale)}
             </button>
           ))}
         </div>
       ) : null}
       {times.length ? (
-        <div role="group" aria-label={`Start times on ${activeDay ? dayLabel(activeDay) : ""}`} className="grid grid-cols-3 gap-2 sm:grid-cols-5">
+        <div role="group" aria-label={t("times", { day: activeDay ? dayLabel(activeDay, locale) : "" })} className="grid grid-cols-3 gap-2 sm:grid-cols-5">
           {times.map((s) => {
-            const label = `${dayLabel(s.start.slice(0, 10))}, ${s.start.slice(11, 16)}`;
+            const label = `${dayLabel(s.start.slice(0, 10), locale)}, ${s.start.slice(11, 16)}`;
             const isSelected = selected?.start === s.start;
             return (
               <button key={s.start} type="button" aria-pressed={isSelected} onClick={() => onSelect({ ...s, label })}
@@ -93,7 +99,7 @@ export function SlotPicker({ proposalId, materialId, mode, timezone, selected, o
         </div>
       ) : null}
       {state === "ready" && lastDay ? (
-        <button type="button" className="btn-quiet" onClick={() => { setState("loading"); setFrom(nextDay(lastDay)); }}>Show later dates</button>
+        <button type="button" className="btn-quiet" onClick={() => { setState("loading"); setFrom(nextDay(lastDay)); }}>{t("later")}</button>
       ) : null}
     </div>
   );

@@ -1,4 +1,4 @@
-import { STATUS_WORDS } from "@/lib/format";
+import { useTranslations } from "next-intl";
 
 // Our own palette; the words always carry the meaning, colour only supports them.
 const TONE: Record<string, string> = {
@@ -13,5 +13,6 @@ const TONE: Record<string, string> = {
 };
 
 export function StatusBadge({ status }: { status: string }) {
-  return <span className={`chip ${TONE[status] ?? "border-line"}`} data-testid="visit-status">{STATUS_WORDS[status] ?? status}</span>;
+  const t = useTranslations("status");
+  return <span className={`chip ${TONE[status] ?? "border-line"}`} data-testid="visit-status">{t.has(status) ? t(status as "confirmed") : status}</span>;
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { useTranslations } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { SlotPicker, type SlotOption } from "./slot-picker";
@@ -9,6 +10,8 @@ type Props = { visitId: string; proposalId: string; materialId: string; mode: st
 /** Move or cancel a visit (patients within the clinic's cut-off; reception any time before it starts). */
 export function VisitActions({ visitId, proposalId, materialId, mode, timezone, canChange, cutoffNote, depositNote }: Props) {
   const router = useRouter();
+  const t = useTranslations("visit");
+  const tc = useTranslations("common");
   const [panel, setPanel] = useState<"none" | "move" | "cancel">("none");
   const [slot, setSlot] = useState<SlotOption | null>(null);
   const [reason, setReason] = useState("");
@@ -22,7 +25,7 @@ export function VisitActions({ visitId, proposalId, materialId, mode, timezone, 
     const json = await res.json().catch(() => ({}));
     setBusy(false);
     if (!res.ok) {
-      setMessage(json.error ?? "That did not work. Please try again.");
+      setMessage(json.error ?? tc("tryAgain"));
       return;
     }
     setPanel("none");
@@ -34,8 +37,8 @@ export function VisitActions({ visitId, proposalId, materialId, mode, timezone, 
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap gap-2">
-        <button type="button" className="btn-quiet" aria-expanded={panel === "move"} onClick={() => setPanel(panel === "move" ? "none" : "move")}>Move to another time</button>
-        <button type="button" className="btn-quiet text-clay-700" aria-expanded={panel === "cancel"} onClick={() => setPanel(panel === "cancel" ? "none" : "cancel")}>Cancel visit</button>
+        <button type="button" className="btn-quiet" aria-expanded={panel === "move"} onClick={() => setPanel(panel === "move" ? "none" : "move")}>{t("move")}</button>
+        <button type="button" className="btn-quiet text-clay-700" aria-expanded={panel === "cancel"} onClick={() => setPanel(panel === "cancel" ? "none" : "cancel")}>{t("cancel")}</button>
       </div>
       <p className="text-sm text-ink-soft">{cutoffNote}</p>
       {message ? <p role="alert" className="rounded-lg bg-clay-50 p-3 text-sm font-medium text-clay-700">{message}</p> : null}
@@ -43,16 +46,16 @@ export function VisitActions({ visitId, proposalId, materialId, mode, timezone, 
         <div className="card space-y-3">
           <SlotPicker proposalId={proposalId} materialId={materialId} mode={mode} timezone={timezone} selected={slot} onSelect={setSlot} endpoint={`/api/appointments/${visitId}/availability`} />
           <button type="button" className="btn-primary" disabled={!slot || busy} onClick={() => post("move", { start: slot!.start })}>
-            {slot ? `Move to ${slot.label}` : "Pick a new time"}
+            {slot ? t("moveTo", { slot: slot.label }) : t("pickNew")}
           </button>
         </div>
       ) : null}
       {panel === "cancel" ? (
         <div className="card space-y-3">
-          <label htmlFor="cancel-reason" className="field-label">Reason (optional)</label>
+          <label htmlFor="cancel-reason" className="field-label">{tc("reason")}</label>
           <input id="cancel-reason" className="field-input" value={reason} maxLength={500} onChange={(e) => setReason(e.target.value)} />
           {depositNote ? <p className="rounded-lg bg-harbour-50 p-3 text-sm font-medium" data-testid="cancel-deposit-note">{depositNote}</p> : null}
-          <button type="button" className="btn-danger" disabled={busy} onClick={() => post("cancel", reason ? { reason } : {})}>Yes, cancel this visit</button>
+          <button type="button" className="btn-danger" disabled={busy} onClick={() => post("cancel", reason ? { reason } : {})}>{t("confirmCancel")}</button>
         </div>
       ) : null}
     </div>

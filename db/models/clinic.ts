@@ -18,6 +18,8 @@ export class Clinic extends Model<InferAttributes<Clinic>, InferCreationAttribut
   declare address: string;
   declare phone: string | null;
   declare currency: CreationOptional<string>;
+  /** ISO 3166-2 code of the clinic's province or state, e.g. "CA-ON" (lib/domain/jurisdiction.ts). */
+  declare jurisdiction: CreationOptional<string>;
   declare settings: CreationOptional<ClinicSettingsJson>;
   /** Staff must sign in with a one-time code besides their password (on for a new clinic). */
   declare requireTwoFactor: CreationOptional<boolean>;
@@ -38,6 +40,7 @@ Clinic.init(
     address: { type: DataTypes.TEXT, allowNull: false },
     phone: DataTypes.TEXT,
     currency: { type: DataTypes.CHAR(3), allowNull: false, defaultValue: "CAD" },
+    jurisdiction: { type: DataTypes.TEXT, allowNull: false, defaultValue: "CA-ON" },
     settings: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     requireTwoFactor: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
     depositKind: { type: DataTypes.TEXT, allowNull: false, defaultValue: "none" },

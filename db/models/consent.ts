@@ -15,6 +15,9 @@ export class ConsentTemplate extends Model<InferAttributes<ConsentTemplate>, Inf
   declare version: number;
   declare title: string;
   declare sections: TemplateSection[];
+  /** The French text of the same version; null only on versions published before French existed. */
+  declare titleFr: CreationOptional<string | null>;
+  declare sectionsFr: CreationOptional<TemplateSection[] | null>;
   declare status: CreationOptional<"published" | "withdrawn">;
   declare publishedAt: CreationOptional<Date>;
   declare withdrawnAt: CreationOptional<Date | null>;
@@ -29,6 +32,8 @@ ConsentTemplate.init(
     version: { type: DataTypes.INTEGER, allowNull: false },
     title: { type: DataTypes.TEXT, allowNull: false },
     sections: { type: DataTypes.JSONB, allowNull: false },
+    titleFr: { type: DataTypes.TEXT, field: "title_fr" },
+    sectionsFr: { type: DataTypes.JSONB, field: "sections_fr" },
     status: { type: DataTypes.TEXT, allowNull: false, defaultValue: "published" },
     publishedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     withdrawnAt: DataTypes.DATE,
@@ -52,6 +57,8 @@ export class Consent extends Model<InferAttributes<Consent>, InferCreationAttrib
   declare acknowledged: CreationOptional<SectionKey[] | null>;
   declare electronicRecordsVersion: CreationOptional<string | null>;
   declare consentText: CreationOptional<string | null>;
+  /** The language the patient read and signed (the text and its hash are in it). */
+  declare language: CreationOptional<"en" | "fr">;
   declare textSha256: CreationOptional<string | null>;
   declare typedName: CreationOptional<string | null>;
   declare signaturePng: CreationOptional<Buffer | null>;
@@ -89,6 +96,7 @@ Consent.init(
     acknowledged: DataTypes.ARRAY(DataTypes.TEXT),
     electronicRecordsVersion: DataTypes.TEXT,
     consentText: DataTypes.TEXT,
+    language: { type: DataTypes.TEXT, allowNull: false, defaultValue: "en" },
     textSha256: { type: DataTypes.CHAR(64), field: "text_sha256" },
     typedName: DataTypes.TEXT,
     signaturePng: DataTypes.BLOB,

@@ -2,6 +2,9 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import { sequelize } from "../sequelize";
 import type { Cementation, Fabrication, FinishingKind, HeatTreatment, Mode, ToothClass } from "@/lib/domain/types";
 
+export type MaterialTexts = { description: string; pros: string[]; cautions: string[] };
+export type MaterialTranslations = Partial<Record<"fr", MaterialTexts & { name?: string }>>;
+
 /** A crown material in a clinic's catalogue (generic names only). Editable data, not code. */
 export class Material extends Model<InferAttributes<Material>, InferCreationAttributes<Material>> {
   declare id: CreationOptional<string>;
@@ -18,6 +21,8 @@ export class Material extends Model<InferAttributes<Material>, InferCreationAttr
   declare description: string;
   declare pros: string[];
   declare cautions: string[];
+  /** The patient-facing texts in other languages; English is in the columns above. */
+  declare translations: CreationOptional<MaterialTranslations>;
   declare provisionalOnly: CreationOptional<boolean>;
   /** The visit's stages in order (see lib/domain/timeline.ts `checkStageOrder`). */
   declare stageOrder: CreationOptional<string[]>;
@@ -51,6 +56,7 @@ Material.init(
     },
     description: { type: DataTypes.TEXT, allowNull: false },
     pros: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
+    translations: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     cautions: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
     provisionalOnly: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     stageOrder: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },

@@ -9,6 +9,7 @@ export class Patient extends Model<InferAttributes<Patient>, InferCreationAttrib
   declare dateOfBirth: string | null;
   /** E.164, e.g. +16135550134. */
   declare phone: string | null;
+  /** Preferred language of pages, e-mails and consent: "en" or "fr". */
   declare language: CreationOptional<"en" | "fr">;
   declare address: CreationOptional<string | null>;
   /** Whether the patient wants visit reminders; new visits start with this choice. */

@@ -6,6 +6,7 @@ import {
 } from "@/db/models";
 import { hashPassword } from "@/lib/auth/password";
 import { CATALOGUE, DEFAULT_STAGE_MINUTES } from "./catalogue";
+import { CATALOGUE_FR } from "./catalogue-fr";
 
 export const DEMO_PASSWORD = "cuspal-demo";
 
@@ -112,7 +113,8 @@ export async function seedClinic(transaction: Transaction) {
 export async function seedCatalogue(clinicId: string, transaction?: Transaction) {
   for (const [i, item] of CATALOGUE.entries()) {
     const { modes, ...fields } = item;
-    const material = await Material.create({ ...fields, clinicId, sortOrder: i }, { transaction });
+    const fr = CATALOGUE_FR[item.key];
+    const material = await Material.create({ ...fields, clinicId, sortOrder: i, translations: fr ? { fr } : {} }, { transaction });
     await MaterialMode.bulkCreate(modes.map((m) => ({ ...m, materialId: material.id })), { transaction });
   }
   await StageDuration.bulkCreate(

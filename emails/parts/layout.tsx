@@ -1,10 +1,11 @@
 // Shared frame for every Cuspal e-mail: header, body, footer with the cautions line.
 import { Body, Container, Head, Hr, Html, Preview, Section, Text } from "@react-email/components";
 import type { ReactNode } from "react";
+import { emailTranslator, type EmailT } from "@/lib/i18n/email";
 
 export const colours = { ink: "#1f2a37", muted: "#55606e", accent: "#0d6e6e", paper: "#f7f5f0", card: "#ffffff" };
 
-export function EmailLayout({ preview, clinicName = "Cuspal", clinicAddress, clinicPhone, footer, children }: {
+export function EmailLayout({ preview, clinicName = "Cuspal", clinicAddress, clinicPhone, footer, children, t = emailTranslator("en") }: {
   preview: string;
   clinicName?: string;
   clinicAddress?: string;
@@ -12,9 +13,11 @@ export function EmailLayout({ preview, clinicName = "Cuspal", clinicAddress, cli
   /** Extra small print under the address, e.g. how to turn reminders off. */
   footer?: ReactNode;
   children: ReactNode;
+  /** The patient's language (English when not given). */
+  t?: EmailT;
 }) {
   return (
-    <Html lang="en">
+    <Html lang={t("lang")}>
       <Head />
       <Preview>{preview}</Preview>
       <Body style={{ backgroundColor: colours.paper, color: colours.ink, fontFamily: "Helvetica, Arial, sans-serif", margin: 0 }}>
@@ -23,10 +26,10 @@ export function EmailLayout({ preview, clinicName = "Cuspal", clinicAddress, cli
           <Section style={{ backgroundColor: colours.card, borderRadius: 12, padding: "20px 24px" }}>{children}</Section>
           <Hr style={{ borderColor: "#ddd8cc", margin: "24px 0 12px" }} />
           {clinicAddress ? <Text style={{ fontSize: 12, color: colours.muted, margin: 0 }}>{clinicName}, {clinicAddress}</Text> : null}
-          {clinicPhone ? <Text style={{ fontSize: 12, color: colours.muted, margin: 0 }}>Phone {clinicPhone}</Text> : null}
+          {clinicPhone ? <Text style={{ fontSize: 12, color: colours.muted, margin: 0 }}>{t("phone", { phone: clinicPhone })}</Text> : null}
           {footer}
           <Text style={{ fontSize: 12, color: colours.muted }}>
-            Sent by Cuspal for your clinic. The portal informs; your dentist decides. Local regulations and licensed practice prevail.
+            {t("footer")}
           </Text>
         </Container>
       </Body>

@@ -5,12 +5,15 @@
 import { readFile } from "node:fs/promises";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
+import { createTranslator } from "next-intl";
 import { PDFDocument } from "pdf-lib";
 import sharp from "sharp";
 import type { ConsentFlag } from "@/lib/domain/consent-questionnaire";
 import type { AssembledConsent } from "@/lib/domain/consent-text";
+import { CONSENT_WORDS } from "@/lib/domain/consent-words";
 import { MAX_IMAGE_PIXELS } from "@/lib/domain/image-limits";
 import { clipText, TEXT_LIMITS } from "@/lib/domain/text-limits";
+import { messagesFor } from "@/lib/i18n/messages";
 import { clean, HARBOUR, MUTED, PAGE, Writer } from "./pdf-layout";
 
 export type AuditLine = { event: string; who: string; at: string; ip: string; userAgent: string };
@@ -110,25 +113,27 @@ export async function buildConsentPdf(raw: ConsentPdfInput): Promise<PDFDocument
   const fonts = { regular: await doc.embedFont(regularBytes, { subset: true }), bold: await doc.embedFont(boldBytes, { subset: true }) };
   const signature = await doc.embedPng(await signatureForPage(input.signaturePng));
   const d = input.document;
+  // The PDF speaks the language the consent was signed in.
+  const t = createTranslator({ locale: d.language, messages: messagesFor(d.language), namespace: "pdf" });
 
   doc.setTitle(`${d.title} — ${input.patientName}`, { showInWindowTitleBar: true });
   doc.setAuthor(input.clinic.name);
-  doc.setSubject(`Informed consent ${input.consentId}, PDF version ${input.pdfVersion}`);
+  doc.setSubject(t("subject", { id: input.consentId, version: input.pdfVersion }));
   doc.setKeywords(["consent", input.consentId, `template version ${d.templateVersion}`]);
   doc.setCreator("Cuspal");
   doc.setProducer("Cuspal");
   doc.setCreationDate(input.createdAt);
   doc.setModificationDate(input.createdAt);
-  doc.setLanguage("en");
+  doc.setLanguage(d.language === "fr" ? "fr-CA" : "en-CA");
 
   const w = new Writer(doc, fonts);
   w.text(input.clinic.name, { size: 11, bold: true, color: HARBOUR, after: 0 });
   w.text(input.clinic.address, { size: 9, color: MUTED, after: 10 });
   w.text(d.title, { size: 18, bold: true, after: 2 });
-  w.text(`Consent text version ${d.templateVersion} · Consent ${input.consentId} · PDF version ${input.pdfVersion}`, { size: 9, color: MUTED, after: 6 });
+  w.text(t("versionLine", { template: d.templateVersion, id: input.consentId, version: input.pdfVersion }), { size: 9, color: MUTED, after: 6 });
   w.rule();
 
-  w.heading("Your visit");
+  w.heading(t("yourVisit"));
   d.visit.forEach((r) => w.row(r.label, r.value));
 
   for (const section of d.sections) {
@@ -138,63 +143,64 @@ export async function buildConsentPdf(raw: ConsentPdfInput): Promise<PDFDocument
       if (block.kind === "p") w.text(block.text);
       else block.items.forEach((item) => w.bullet(item));
     }
-    w.text(input.acknowledgedAll ? "✓ Read and acknowledged by the patient." : "Not acknowledged.", { size: 9, color: MUTED, after: 2 });
+    w.text(input.acknowledgedAll ? t("acknowledged") : t("notAcknowledged"), { size: 9, color: MUTED, after: 2 });
   }
 
-  w.heading(`${d.electronicRecords.heading} (version ${d.electronicRecords.version})`);
+  w.heading(`${d.electronicRecords.heading} ${CONSENT_WORDS[d.language].recordsVersion(d.electronicRecords.version)}`);
   d.electronicRecords.text.forEach((t) => w.text(t));
-  w.text("✓ Agreed by the patient before signing.", { size: 9, color: MUTED });
+  w.text(t("agreed"), { size: 9, color: MUTED });
 
   w.newPage();
-  w.heading("Health questionnaire", 15);
-  w.heading("Points for the dentist's attention", 12);
-  if (input.flags.length === 0) w.text("None: the patient answered no to every question and added nothing.");
+  w.heading(t("questionnaire"), 15);
+  w.heading(t("attention"), 12);
+  if (input.flags.length === 0) w.text(t("noFlags"));
   for (const f of input.flags) {
-    w.flag({ level: f.level, tag: f.level === "alert" ? "ALERT" : "CHECK", body: f.detail ? `${f.label}. ${f.detail}` : f.label });
+    w.flag({ level: f.level, tag: f.level === "alert" ? t("alertTag") : t("checkTag"), body: f.detail ? `${f.label}. ${f.detail}` : f.label });
   }
-  w.heading("Answers", 12);
+  w.heading(t("answers"), 12);
   await breathe();
   for (const a of input.answers) {
     w.text(a.question, { after: 0 });
-    w.text(`Answer: ${a.answer}`, { bold: true, indent: 12, after: 4 });
+    w.text(t("answer", { answer: a.answer }), { bold: true, indent: 12, after: 4 });
   }
 
-  w.heading("Signature", 15);
-  w.text(`By signing, ${input.typedName} confirms having read each section above, having had the chance to ask questions, and agreeing to the treatment described.`);
-  w.row("Typed name", input.typedName);
-  w.row("Signed", input.signedAt);
+  w.heading(t("signature"), 15);
+  w.text(t("bySigning", { name: input.typedName }));
+  w.row(t("typedName"), input.typedName);
+  w.row(t("signed"), input.signedAt);
   w.gap(4);
   w.image(signature, 260, 110);
-  w.text("The portal informs; the dentist decides. This consent is confirmed with the patient chairside, and the dentist's judgment, local regulations and licensed practice prevail.", { size: 9, color: MUTED });
+  w.text(t("cautions"), { size: 9, color: MUTED });
 
   w.newPage();
-  w.heading("Audit trail", 15);
-  w.text("Each event as recorded by the clinic's portal. Times are shown in the clinic's time zone and in UTC.", { size: 9, color: MUTED });
+  w.heading(t("audit"), 15);
+  w.text(t("auditIntro"), { size: 9, color: MUTED });
   await breathe();
   for (const line of input.audit) {
     w.rule();
-    w.row("Event", line.event);
-    w.row("Who", line.who);
-    w.row("When", line.at);
-    w.row("IP address", line.ip);
-    w.row("Device (user agent)", line.userAgent);
+    w.row(t("event"), line.event);
+    w.row(t("who"), line.who);
+    w.row(t("when"), line.at);
+    w.row(t("ip"), line.ip);
+    w.row(t("device"), line.userAgent);
   }
   w.rule();
-  w.heading("Fingerprints", 12);
-  w.fingerprint("Consent text SHA-256", input.textSha256);
-  if (input.previous) w.fingerprint(`PDF version ${input.previous.version} SHA-256`, input.previous.sha256);
-  w.row("Consent text version", String(d.templateVersion));
-  w.row("Records agreement", `version ${d.electronicRecords.version}`);
-  w.row("Review", input.review ? `Reviewed by ${input.review.by}, ${input.review.at}` : "Not reviewed yet (the dentist reviews it before treatment starts).");
+  w.heading(t("fingerprints"), 12);
+  w.fingerprint(t("textSha"), input.textSha256);
+  if (input.previous) w.fingerprint(t("pdfSha", { version: input.previous.version }), input.previous.sha256);
+  w.row(t("textVersion"), String(d.templateVersion));
+  w.row(t("language"), `${CONSENT_WORDS[d.language].languageName} (${d.language})`);
+  w.row(t("records"), t("recordsVersion", { version: d.electronicRecords.version }));
+  w.row("Review", input.review ? t("reviewedBy", { name: input.review.by, at: input.review.at }) : t("notReviewed"));
   w.gap(6);
   w.text(
-    "This PDF carries the clinic's digital seal. A PDF reader shows whether the file was changed after sealing, and the clinic can check any copy against its records. Earlier versions of this PDF stay stored and verifiable.",
+    t("seal"),
     { size: 9, color: MUTED },
   );
 
   const pages = doc.getPages();
   pages.forEach((page, i) => {
-    const footer = clean(`${input.clinic.name} · Consent ${input.consentId} · PDF version ${input.pdfVersion} · Page ${i + 1} of ${pages.length}`);
+    const footer = clean(t("footer", { clinic: input.clinic.name, id: input.consentId, version: input.pdfVersion, page: i + 1, pages: pages.length }));
     page.drawText(footer, { x: PAGE.margin, y: 32, size: 8, font: fonts.regular, color: MUTED });
   });
   return doc;

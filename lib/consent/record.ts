@@ -6,15 +6,21 @@ import {
   Appointment, AuditEvent, Clinic, Consent, ConsentPdf, ConsentTemplate, Material, Patient, User, sequelize,
 } from "@/db/models";
 import { recordAudit } from "@/lib/server/audit";
-import { answerLines, questionnaireFlags, type ConsentFlag, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
+import { questionnaireFlags, type ConsentFlag, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
 import { sha256Hex } from "@/lib/domain/consent-hash";
 import {
-  assembleConsent, consentText, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, ELECTRONIC_RECORDS, formatFee, formatInZone, modeLabel,
+  assembleConsent, consentText, DEFAULT_SECTIONS, DEFAULT_TEMPLATE_TITLE, formatInZone,
   parseConsentText, type AssembledConsent, type SectionKey, type VisitSummary,
 } from "@/lib/domain/consent-text";
 import { crownWording } from "@/lib/domain/consent-text";
 import { visitLengthRange } from "@/lib/domain/timeline";
-import { describeTooth } from "@/lib/domain/tooth";
+import { CONSENT_WORDS, type ConsentLanguage } from "@/lib/domain/consent-words";
+import { DEFAULT_SECTIONS_FR, DEFAULT_TEMPLATE_TITLE_FR } from "@/lib/domain/consent-text-fr";
+import { jurisdictionOf } from "@/lib/domain/jurisdiction";
+import { formatConsentDate, formatMoney } from "@/lib/i18n/format";
+import { materialName, materialTexts } from "@/lib/i18n/material-texts";
+import { toothLabel } from "@/lib/i18n/tooth-words";
+import { answerLinesIn } from "@/lib/i18n/questionnaire";
 import { buildConsentPdf, type AuditLine } from "./pdf";
 import { sealPdf } from "./seal";
 
@@ -41,35 +47,44 @@ export function patientName(ctx: VisitContext): string {
   return ctx.patientUser.name ?? ctx.patientUser.email;
 }
 
-export function visitFacts(ctx: VisitContext): VisitSummary {
+export function visitFacts(ctx: VisitContext, language: ConsentLanguage = "en"): VisitSummary {
+  const words = CONSENT_WORDS[language];
   return {
     materialClass: ctx.material.iso6872Class,
     dateOfBirth: ctx.patient.dateOfBirth,
     patient: patientName(ctx),
-    tooth: describeTooth(ctx.visit.tooth).label,
-    material: ctx.material.name,
-    mode: modeLabel(ctx.visit.mode),
-    date: formatInZone(ctx.visit.startsAt, ctx.clinic.timeZone),
-    fee: formatFee(ctx.visit.feeCents, ctx.clinic.currency),
+    tooth: toothLabel(ctx.visit.tooth, language),
+    material: materialName(ctx.material, language),
+    mode: words.modes[ctx.visit.mode] ?? ctx.visit.mode,
+    date: formatConsentDate(ctx.visit.startsAt, ctx.clinic.timeZone, language),
+    fee: formatMoney(ctx.visit.feeCents, ctx.clinic.currency, language),
     clinic: ctx.clinic.name,
-    dentist: ctx.dentist.name ?? "your dentist",
+    dentist: ctx.dentist.name ?? words.yourDentist,
     // The booked visit's length is the estimate for this tooth, material and mode.
-    length: visitLengthRange(Math.round((ctx.visit.endsAt.getTime() - ctx.visit.startsAt.getTime()) / 60_000)).text,
-    ...crownWording(ctx.material.provisionalOnly),
+    length: visitLengthRange(Math.round((ctx.visit.endsAt.getTime() - ctx.visit.startsAt.getTime()) / 60_000), undefined, language).text,
+    ...crownWording(ctx.material.provisionalOnly, language),
   };
 }
 
+/** The language this patient reads this template version in: theirs, unless the version has no French text. */
+export function consentLanguage(template: ConsentTemplate, ctx: VisitContext): ConsentLanguage {
+  return ctx.patient.language === "fr" && template.titleFr && template.sectionsFr ? "fr" : "en";
+}
+
 /** The exact consent a patient reads for this visit under this template version, and its SHA-256. */
-export function consentForVisit(template: ConsentTemplate, ctx: VisitContext): { document: AssembledConsent; text: string; textSha256: string } {
+export function consentForVisit(template: ConsentTemplate, ctx: VisitContext): { document: AssembledConsent; text: string; textSha256: string; language: ConsentLanguage } {
+  const language = consentLanguage(template, ctx);
   const document = assembleConsent({
-    title: template.title,
+    language,
+    title: language === "fr" ? template.titleFr! : template.title,
     templateVersion: template.version,
-    sections: template.sections,
-    facts: visitFacts(ctx),
-    materialCautions: ctx.material.cautions,
+    sections: language === "fr" ? template.sectionsFr! : template.sections,
+    facts: visitFacts(ctx, language),
+    materialCautions: materialTexts(ctx.material, language).cautions,
+    electronicRecords: jurisdictionOf(ctx.clinic.jurisdiction).agreement[language],
   });
   const text = consentText(document);
-  return { document, text, textSha256: sha256Hex(text) };
+  return { document, text, textSha256: sha256Hex(text), language };
 }
 
 export function flagsFor(answers: QuestionnaireAnswers, ctx: VisitContext): ConsentFlag[] {
@@ -82,10 +97,13 @@ export async function publishedTemplate(clinicId: string, transaction?: Transact
   if (found) return found;
   // ON CONFLICT: two first visitors at once must not publish two versions.
   await sequelize.query(
-    `INSERT INTO consent_templates (clinic_id, version, title, sections, status)
-     SELECT $1, coalesce(max(version), 0) + 1, $2, $3::jsonb, 'published' FROM consent_templates WHERE clinic_id = $1
+    `INSERT INTO consent_templates (clinic_id, version, title, sections, title_fr, sections_fr, status)
+     SELECT $1, coalesce(max(version), 0) + 1, $2, $3::jsonb, $4, $5::jsonb, 'published' FROM consent_templates WHERE clinic_id = $1
      ON CONFLICT DO NOTHING`,
-    { bind: [clinicId, DEFAULT_TEMPLATE_TITLE, JSON.stringify(DEFAULT_SECTIONS)], transaction, type: QueryTypes.INSERT },
+    {
+      bind: [clinicId, DEFAULT_TEMPLATE_TITLE, JSON.stringify(DEFAULT_SECTIONS), DEFAULT_TEMPLATE_TITLE_FR, JSON.stringify(DEFAULT_SECTIONS_FR)],
+      transaction, type: QueryTypes.INSERT,
+    },
   );
   const created = await ConsentTemplate.findOne({ where: { clinicId, status: "published" }, transaction });
   if (!created) throw new Error(`Clinic ${clinicId} has no published consent template.`);
@@ -128,7 +146,7 @@ export type SignatureInput = {
 
 /** Stores the signature and its proof on a pending consent, with its audit event. */
 export async function recordSignature(consent: Consent, ctx: VisitContext, input: SignatureInput, transaction: Transaction): Promise<Consent> {
-  const { text, textSha256 } = consentForVisit(input.template, ctx);
+  const { text, textSha256, document, language } = consentForVisit(input.template, ctx);
   await consent.update(
     {
       status: "signed",
@@ -137,8 +155,9 @@ export async function recordSignature(consent: Consent, ctx: VisitContext, input
       answers: input.answers,
       flags: flagsFor(input.answers, ctx),
       acknowledged: input.acknowledged,
-      electronicRecordsVersion: ELECTRONIC_RECORDS.version,
+      electronicRecordsVersion: document.electronicRecords.version,
       consentText: text,
+      language,
       textSha256,
       typedName: input.typedName,
       signaturePng: input.signaturePng,
@@ -152,7 +171,7 @@ export async function recordSignature(consent: Consent, ctx: VisitContext, input
     {
       clinicId: consent.clinicId, actorUserId: input.actorUserId, action: "consent.signed", subjectType: "consent", subjectId: consent.id,
       ip: input.ip, userAgent: input.userAgent,
-      data: { appointmentId: consent.appointmentId, templateVersion: input.template.version, textSha256, flags: consent.flags.length },
+      data: { appointmentId: consent.appointmentId, templateVersion: input.template.version, textSha256, language, flags: consent.flags.length },
     },
     transaction,
   );
@@ -230,14 +249,14 @@ export async function issuePdf(consent: Consent, ctx: VisitContext, reason: "sig
     patientName: patientName(ctx),
     document,
     acknowledgedAll: (consent.acknowledged ?? []).length === document.sections.length,
-    answers: answerLines(consent.answers),
+    answers: answerLinesIn(consent.answers, document.language),
     flags: consent.flags,
     typedName: consent.typedName ?? "",
     signaturePng: consent.signaturePng,
-    signedAt: `${formatInZone(consent.signedAt, zone)} · ${consent.signedAt.toISOString()}`,
+    signedAt: `${formatConsentDate(consent.signedAt, zone, document.language)} · ${consent.signedAt.toISOString()}`,
     textSha256,
     audit: await auditLines(consent, zone, transaction),
-    review: consent.reviewedAt && reviewer ? { by: reviewer.name ?? reviewer.email, at: `${formatInZone(consent.reviewedAt, zone)} · ${consent.reviewedAt.toISOString()}` } : null,
+    review: consent.reviewedAt && reviewer ? { by: reviewer.name ?? reviewer.email, at: `${formatConsentDate(consent.reviewedAt, zone, document.language)} · ${consent.reviewedAt.toISOString()}` } : null,
     previous: previous ? { version: previous.version, sha256: previous.sha256 } : null,
     createdAt: at,
   });

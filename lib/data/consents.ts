@@ -1,5 +1,9 @@
 // Data access for informed consent: who may see or change which consent, then the core steps
 // in lib/consent/record.ts inside one transaction with their audit events.
+import { isLocale, type Locale } from "@/lib/i18n/locale";
+import { materialName } from "@/lib/i18n/material-texts";
+import { toothLabel } from "@/lib/i18n/tooth-words";
+import { jurisdictionOf } from "@/lib/domain/jurisdiction";
 import "server-only";
 import { Op, QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
@@ -69,15 +73,14 @@ async function pdfVersions(consentId: string): Promise<PdfVersionSummary[]> {
   return rows.map((r) => ({ version: r.version, reason: r.reason, sha256: r.sha256, createdAt: r.createdAt }));
 }
 
-function visitSummary(ctx: VisitContext) {
-  const tooth = describeTooth(ctx.visit.tooth);
+function visitSummary(ctx: VisitContext, language: Locale = "en") {
   return {
     id: ctx.visit.id,
     status: ctx.visit.status,
     startsAt: ctx.visit.startsAt,
     timeZone: ctx.clinic.timeZone,
-    tooth: tooth.label,
-    material: ctx.material.name,
+    tooth: toothLabel(ctx.visit.tooth, language),
+    material: materialName(ctx.material, language),
     mode: ctx.visit.mode,
     dentist: ctx.dentist.name ?? ctx.dentist.email,
     patient: patientName(ctx),
@@ -112,8 +115,10 @@ export async function openConsentForPatient({ user, appointmentId, ip, userAgent
   const withdrawn = await Consent.findAll({ where: { appointmentId: visit.id, status: "withdrawn" }, order: [["withdrawnAt", "DESC"]] });
   const signed = live && live.status !== "pending" && live.consentText ? live : null;
   return {
-    visit: visitSummary(ctx),
+    visit: visitSummary(ctx, isLocale(ctx.patient.language) ? ctx.patient.language : "en"),
     patientName: patientName(ctx),
+    /** How the clinic keeps health information, under its jurisdiction, in the patient's language. */
+    privacy: jurisdictionOf(ctx.clinic.jurisdiction).privacy[ctx.patient.language === "fr" ? "fr" : "en"],
     consent: live ? { id: live.id, status: live.status as ConsentStatus, signedAt: live.signedAt, reviewedAt: live.reviewedAt, typedName: live.typedName } : null,
     signedDocument: signed ? parseConsentText(signed.consentText!) : null,
     pdfVersions: signed ? await pdfVersions(signed.id) : [],
@@ -310,6 +315,7 @@ export async function staffConsentView({ user, appointmentId }: { user: SessionU
           typedName: live.typedName,
           templateVersion: live.templateVersion,
           textSha256: live.textSha256,
+          language: live.language,
           reviewedAt: live.reviewedAt,
           reviewer: reviewer ? reviewer.name ?? reviewer.email : null,
           flags: signed ? live.flags : [],
@@ -337,6 +343,7 @@ export async function listTemplateVersions({ user }: { user: SessionUser }) {
     versions: rows.map((r) => ({
       id: r.id, version: r.version, title: r.title, status: r.status, publishedAt: r.publishedAt, withdrawnAt: r.withdrawnAt,
       sections: r.sections as TemplateSection[], signedCount: counts.get(r.id) ?? 0,
+      titleFr: r.titleFr, sectionsFr: r.sectionsFr as TemplateSection[] | null,
     })),
   };
 }
@@ -351,7 +358,8 @@ export async function publishTemplateVersion({ user, values, ip, userAgent }: { 
     const issue = parsed.error.issues[0];
     return { ok: false, error: issue?.message ?? "The consent text is not valid.", field: issue?.path.join(".") };
   }
-  const problems = templateProblems(parsed.data);
+  const fr = parsed.data.fr;
+  const problems = [...templateProblems(parsed.data), ...templateProblems(fr).map((p) => ({ ...p, field: `fr.${p.field}` }))];
   if (problems.length) return { ok: false, error: problems[0].message, field: problems[0].field };
   const clinicId = user.clinicId;
   const version = await sequelize.transaction(async (t) => {
@@ -361,7 +369,7 @@ export async function publishTemplateVersion({ user, values, ip, userAgent }: { 
     const last = (await ConsentTemplate.max<number, ConsentTemplate>("version", { where: { clinicId }, transaction: t })) ?? 0;
     if (current) await current.update({ status: "withdrawn", withdrawnAt: new Date() }, { transaction: t });
     const created = await ConsentTemplate.create(
-      { clinicId, version: last + 1, title: parsed.data.title, sections: parsed.data.sections, status: "published", createdBy: user.id },
+      { clinicId, version: last + 1, title: parsed.data.title, sections: parsed.data.sections, titleFr: fr.title, sectionsFr: fr.sections, status: "published", createdBy: user.id },
       { transaction: t },
     );
     await recordAudit(

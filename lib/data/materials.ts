@@ -27,6 +27,7 @@ export async function listMaterials({ clinicId, activeOnly = true }: { clinicId:
     cautions: m.cautions,
     /** The clinic's list price in cents (null when the clinic has not priced it). */
     listFeeCents: m.listFeeCents ?? null,
+    translations: m.translations,
     modes: (m.modes ?? [])
       .slice()
       .sort((a, b) => ["rapid", "standard", "refined"].indexOf(a.mode) - ["rapid", "standard", "refined"].indexOf(b.mode))

@@ -77,7 +77,7 @@ export async function listVisits({ user, statuses, from, to }: { user: SessionUs
 }
 
 export async function listPatientVisits({ patientId }: { patientId: string }) {
-  const rows = await Appointment.findAll({ where: { patientId }, include: [{ model: Material, as: "material", attributes: ["name"] }], order: [["startsAt", "DESC"]] });
+  const rows = await Appointment.findAll({ where: { patientId }, include: [{ model: Material, as: "material", attributes: ["name", "translations"] }], order: [["startsAt", "DESC"]] });
   return rows;
 }
 

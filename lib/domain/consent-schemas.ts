@@ -39,8 +39,8 @@ export const withdrawConsentSchema = z.object({
   reason: freeText(TEXT_LIMITS.withdrawReason).optional(),
 });
 
-/** The clinic manager's template editor: a title and one heading and body per section. */
-export const templateFormSchema = z.object({
+/** The clinic manager's template editor: a title and one heading and body per section, in English and in French. */
+const templateTextSchema = z.object({
   title: z.string().trim().min(3, { message: "Give the consent text a title." }).max(TEXT_LIMITS.templateTitle, { message: `Keep the title under ${TEXT_LIMITS.templateTitle} characters.` }),
   sections: z
     .array(
@@ -52,7 +52,16 @@ export const templateFormSchema = z.object({
     )
     .length(SECTION_KEYS.length, { message: "Every section must be there." }),
 });
+// Both languages are published together: a version missing its French text cannot be published.
+export const FRENCH_MISSING = "Add the French text: both languages are published together.";
+export const templateFormSchema = templateTextSchema.extend({
+  fr: templateTextSchema.optional().transform((fr, ctx) => {
+    if (!fr) ctx.addIssue({ code: "custom", message: FRENCH_MISSING });
+    return fr!;
+  }),
+});
 export type TemplateFormValues = z.output<typeof templateFormSchema>;
+export type TemplateFormInput = z.input<typeof templateFormSchema>;
 
 const FOLD = { ł: "l", ø: "o", đ: "d", ß: "ss", æ: "ae", œ: "oe" };
 

@@ -1,6 +1,8 @@
 // Consent text: the sections a template holds, the default plain-language template, and the
 // assembly of one visit's consent (placeholders filled in, the material's cautions added) into
-// the exact text the patient reads, signs and whose SHA-256 is stored. Pure functions.
+// the exact text the patient reads, signs and whose SHA-256 is stored, in the patient's language
+// (the French default template is in consent-text-fr.ts, the fixed words in consent-words.ts). Pure functions.
+import { CONSENT_LANGUAGES, CONSENT_WORDS, type ConsentLanguage } from "./consent-words";
 
 export const SECTION_KEYS = ["procedure", "benefits", "risks", "material", "alternatives", "costs", "questions"] as const;
 export type SectionKey = (typeof SECTION_KEYS)[number];
@@ -37,13 +39,10 @@ export const PLACEHOLDER_HELP: Record<Placeholder, string> = {
 };
 
 /** The wording that depends on whether the material is a final or a provisional crown. */
-export function crownWording(provisional: boolean): Pick<VisitFacts, "crown" | "visits"> {
-  return provisional
-    ? {
-        crown: "a provisional (temporary) crown",
-        visits: "It is made and fitted in one visit. It is a provisional crown: it protects the tooth for a limited time, and a final crown is still needed at a later appointment.",
-      }
-    : { crown: "a crown", visits: "Everything happens in one visit: no temporary crown and no second appointment for fitting." };
+export function crownWording(provisional: boolean, language: ConsentLanguage = "en"): Pick<VisitFacts, "crown" | "visits"> {
+  const w = CONSENT_WORDS[language];
+  const kind = provisional ? "provisional" : "final";
+  return { crown: w.crown[kind], visits: w.visits[kind] };
 }
 
 export const DEFAULT_TEMPLATE_TITLE = "Consent to a same-day crown";
@@ -144,6 +143,8 @@ export type Block = { kind: "p"; text: string } | { kind: "list"; items: string[
 export type AssembledSection = { key: SectionKey; heading: string; blocks: Block[] };
 export type VisitRow = { label: string; value: string };
 export type AssembledConsent = {
+  /** The language the text is written in (its fixed words follow it). */
+  language: ConsentLanguage;
   title: string;
   templateVersion: number;
   /** The visit as the patient saw it: patient, tooth, material, mode, date, dentist, clinic. */
@@ -179,17 +180,18 @@ export function parseBlocks(body: string): Block[] {
 export type VisitSummary = VisitFacts & { materialClass: number | null; dateOfBirth: string | null };
 
 /** The "Your visit" rows, in a fixed order. */
-export function visitRows(facts: VisitSummary): VisitRow[] {
-  const rows: VisitRow[] = [{ label: "Patient", value: facts.patient }];
-  if (facts.dateOfBirth) rows.push({ label: "Date of birth", value: facts.dateOfBirth });
+export function visitRows(facts: VisitSummary, language: ConsentLanguage = "en"): VisitRow[] {
+  const w = CONSENT_WORDS[language].rows;
+  const rows: VisitRow[] = [{ label: w.patient, value: facts.patient }];
+  if (facts.dateOfBirth) rows.push({ label: w.dateOfBirth, value: facts.dateOfBirth });
   rows.push(
-    { label: "Tooth (ISO 3950)", value: facts.tooth },
-    { label: "Material", value: facts.materialClass ? `${facts.material} (ISO 6872 class ${facts.materialClass})` : facts.material },
-    { label: "Finishing mode", value: facts.mode },
-    { label: "Visit", value: facts.date },
-    { label: "Expected length", value: facts.length },
-    { label: "Dentist", value: facts.dentist },
-    { label: "Clinic", value: facts.clinic },
+    { label: w.tooth, value: facts.tooth },
+    { label: w.material, value: facts.materialClass ? w.materialClass(facts.material, facts.materialClass) : facts.material },
+    { label: w.mode, value: facts.mode },
+    { label: w.visit, value: facts.date },
+    { label: w.length, value: facts.length },
+    { label: w.dentist, value: facts.dentist },
+    { label: w.clinic, value: facts.clinic },
   );
   return rows.map((r) => ({ label: r.label, value: oneLine(r.value) }));
 }
@@ -201,7 +203,12 @@ export function assembleConsent(input: {
   sections: TemplateSection[];
   facts: VisitSummary;
   materialCautions: readonly string[];
+  /** The language of title, sections and cautions; English when not given. */
+  language?: ConsentLanguage;
+  /** The records agreement of the clinic's jurisdiction, in that language. */
+  electronicRecords?: { version: string; heading: string; text: readonly string[] };
 }): AssembledConsent {
+  const language = input.language ?? "en";
   const byKey = new Map(input.sections.map((s) => [s.key, s]));
   const sections = SECTION_KEYS.map((key): AssembledSection => {
     const section = byKey.get(key);
@@ -209,22 +216,20 @@ export function assembleConsent(input: {
     const blocks = parseBlocks(fillPlaceholders(section.body, input.facts));
     if (key === "material") {
       const cautions = input.materialCautions.map(oneLine).filter(Boolean);
-      blocks.push(cautions.length ? { kind: "list", items: cautions } : { kind: "p", text: "Your dentist will explain this material's cautions chairside." });
+      blocks.push(cautions.length ? { kind: "list", items: cautions } : { kind: "p", text: CONSENT_WORDS[language].noCautions });
     }
     return { key, heading: oneLine(fillPlaceholders(section.heading, input.facts)), blocks };
   });
   return {
+    language,
     title: oneLine(fillPlaceholders(input.title, input.facts)),
     templateVersion: input.templateVersion,
-    visit: visitRows(input.facts),
+    visit: visitRows(input.facts, language),
     sections,
-    electronicRecords: ELECTRONIC_RECORDS,
+    electronicRecords: input.electronicRecords ?? ELECTRONIC_RECORDS,
   };
 }
 
-const VISIT_HEADING = "Your visit";
-const VERSION_PREFIX = "Consent text version ";
-const RECORDS_RE = /^(.*) \(version ([^)]+)\)$/;
 
 /**
  * The canonical text of an assembled consent: exactly what the patient was shown, in a fixed
@@ -233,13 +238,14 @@ const RECORDS_RE = /^(.*) \(version ([^)]+)\)$/;
  * so every PDF of a consent is laid out from the very text that was signed.
  */
 export function consentText(doc: AssembledConsent): string {
-  const parts: string[] = [`# ${doc.title}`, `${VERSION_PREFIX}${doc.templateVersion}`];
-  parts.push(`## ${VISIT_HEADING}`, doc.visit.map((r) => `- ${r.label}: ${r.value}`).join("\n"));
+  const words = CONSENT_WORDS[doc.language];
+  const parts: string[] = [`# ${doc.title}`, `${words.versionPrefix}${doc.templateVersion}`];
+  parts.push(`## ${words.visitHeading}`, doc.visit.map((r) => `- ${r.label}: ${r.value}`).join("\n"));
   for (const s of doc.sections) {
     parts.push(`## ${s.heading}`);
     for (const b of s.blocks) parts.push(b.kind === "p" ? b.text : b.items.map((i) => `- ${i}`).join("\n"));
   }
-  parts.push(`## ${doc.electronicRecords.heading} (version ${doc.electronicRecords.version})`);
+  parts.push(`## ${doc.electronicRecords.heading} ${words.recordsVersion(doc.electronicRecords.version)}`);
   parts.push(...doc.electronicRecords.text);
   return parts.join("\n\n").normalize("NFC") + "\n";
 }
@@ -248,7 +254,9 @@ export function consentText(doc: AssembledConsent): string {
 export function parseConsentText(text: string): AssembledConsent {
   const chunks = text.replace(/\n$/, "").split("\n\n");
   const [titleLine, versionLine, ...rest] = chunks;
-  if (!titleLine?.startsWith("# ") || !versionLine?.startsWith(VERSION_PREFIX)) throw new Error("Not a consent text: the title or version line is missing.");
+  // The version line names the language: each language has its own fixed words.
+  const language = CONSENT_LANGUAGES.find((l) => versionLine?.startsWith(CONSENT_WORDS[l].versionPrefix));
+  if (!titleLine?.startsWith("# ") || !language) throw new Error("Not a consent text: the title or version line is missing.");
   const groups: { heading: string; chunks: string[] }[] = [];
   for (const chunk of rest) {
     if (chunk.startsWith("## ")) groups.push({ heading: chunk.slice(3), chunks: [] });
@@ -257,8 +265,9 @@ export function parseConsentText(text: string): AssembledConsent {
   }
   const visitGroup = groups.shift();
   const recordsGroup = groups.pop();
-  const records = recordsGroup?.heading.match(RECORDS_RE);
-  if (visitGroup?.heading !== VISIT_HEADING || !records || groups.length !== SECTION_KEYS.length) {
+  const words = CONSENT_WORDS[language];
+  const records = recordsGroup?.heading.match(words.recordsVersionRe);
+  if (visitGroup?.heading !== words.visitHeading || !records || groups.length !== SECTION_KEYS.length) {
     throw new Error("Not a consent text: the visit, the sections or the records agreement are missing.");
   }
   const visit = (visitGroup.chunks[0] ?? "").split("\n").map((line) => {
@@ -266,8 +275,9 @@ export function parseConsentText(text: string): AssembledConsent {
     return { label, value: value.join(": ") };
   });
   return {
+    language,
     title: titleLine.slice(2),
-    templateVersion: Number(versionLine.slice(VERSION_PREFIX.length)),
+    templateVersion: Number(versionLine.slice(words.versionPrefix.length)),
     visit,
     sections: groups.map((g, i) => ({ key: SECTION_KEYS[i], heading: g.heading, blocks: g.chunks.flatMap((c) => parseBlocks(c)) })),
     electronicRecords: { heading: records[1], version: records[2], text: recordsGroup!.chunks },

@@ -186,7 +186,7 @@ export function estimateTimeline(input: TimelineInput): Timeline {
 }
 
 /** A visit length as a patient reads it: the estimate (or the span of several) rounded out to quarter hours, as a range. */
-export function visitLengthRange(totalMinutes: number, longestMinutes = totalMinutes): { fromMinutes: number; toMinutes: number; text: string } {
+export function visitLengthRange(totalMinutes: number, longestMinutes = totalMinutes, language: "en" | "fr" = "en"): { fromMinutes: number; toMinutes: number; text: string } {
   const fromMinutes = Math.max(15, Math.floor(totalMinutes / 15) * 15);
   const toMinutes = Math.ceil((Math.max(totalMinutes, longestMinutes) + 15) / 15) * 15;
   const hours = (m: number) => {
@@ -195,5 +195,6 @@ export function visitLengthRange(totalMinutes: number, longestMinutes = totalMin
     if (h === 0) return `${r} min`;
     return r === 0 ? `${h} h` : `${h} h ${r} min`;
   };
-  return { fromMinutes, toMinutes, text: `about ${hours(fromMinutes)} to ${hours(toMinutes)}` };
+  const text = language === "fr" ? `environ ${hours(fromMinutes)} à ${hours(toMinutes)}` : `about ${hours(fromMinutes)} to ${hours(toMinutes)}`;
+  return { fromMinutes, toMinutes, text };
 }

@@ -19,6 +19,8 @@ export type VisitCalendarInput = {
   stamp?: Date;
   /** Minutes before the start for the calendar's own alert. */
   alarmMinutesBefore?: number;
+  /** The patient's words for the event (summary, description lines, alert) and language; English when not given. */
+  words?: { language: string; summary: string; description: string[]; alarm: string };
 };
 
 /** Stable per visit: a calendar that already holds the visit updates it instead of adding a second one. */
@@ -29,7 +31,7 @@ export function visitUid(appointmentId: string): string {
 export function visitCalendar(input: VisitCalendarInput): string {
   const minutes = Math.round((input.endsAt.getTime() - input.startsAt.getTime()) / 60_000);
   const cal = ical({
-    prodId: { company: "Cuspal", product: "Crown visits", language: "EN" },
+    prodId: { company: "Cuspal", product: "Crown visits", language: (input.words?.language ?? "en").toUpperCase() },
     // PUBLISH: a copy for the patient's calendar; no reply is expected (RFC 5546 §3.2.1).
     method: ICalCalendarMethod.PUBLISH,
   });
@@ -39,17 +41,17 @@ export function visitCalendar(input: VisitCalendarInput): string {
     stamp: input.stamp ?? new Date(),
     start: input.startsAt,
     end: input.endsAt,
-    summary: `${input.cancelled ? "Cancelled: " : ""}Crown visit at ${input.clinicName}`,
+    summary: input.words?.summary ?? `${input.cancelled ? "Cancelled: " : ""}Crown visit at ${input.clinicName}`,
     location: `${input.clinicName}, ${input.clinicAddress}`,
-    description: [
+    description: (input.words?.description ?? [
       `Same-day crown for your ${input.toothWords} (${input.materialName}).`,
       `Allow the whole visit: about ${durationWords(minutes)}.`,
-    ].join("\n"),
+    ]).join("\n"),
     organizer: { name: input.clinicName, email: input.organizerEmail },
     status: input.cancelled ? ICalEventStatus.CANCELLED : ICalEventStatus.CONFIRMED,
     alarms: input.cancelled
       ? []
-      : [{ type: ICalAlarmType.display, trigger: (input.alarmMinutesBefore ?? 120) * 60, description: `Crown visit at ${input.clinicName}` }],
+      : [{ type: ICalAlarmType.display, trigger: (input.alarmMinutesBefore ?? 120) * 60, description: input.words?.alarm ?? `Crown visit at ${input.clinicName}` }],
   });
   const text = cal.toString();
   // Every content line ends with CRLF, the last one included (RFC 5545 §3.1).

@@ -15,13 +15,16 @@ import VisitEndedEmail from "@/emails/visit-ended";
 import VisitMovedEmail from "@/emails/visit-moved";
 import VisitRequestedEmail from "@/emails/visit-requested";
 import type { VisitMailProps } from "@/emails/parts/visit-details";
-import { describeTooth } from "@/lib/domain/tooth";
 import type { AppointmentStatus } from "@/lib/domain/types";
 import { durationWords, reminderHours, reminderStillUseful, timeUntilWords } from "@/lib/domain/reminders";
 import { visitCalendar } from "@/lib/domain/visit-calendar";
-import { shortWhen, visitWhen } from "@/lib/domain/visit-when";
-import { money, when as whenInZone } from "@/lib/format";
+import { shortWhen } from "@/lib/domain/visit-when";
 import { receiptNumber } from "@/lib/domain/money";
+import { emailTranslator, lengthWords, localShortWhen, localVisitWhen, timeUntil, type EmailT } from "@/lib/i18n/email";
+import { formatList, formatMoney } from "@/lib/i18n/format";
+import { when as whenInZone } from "@/lib/format";
+import { isLocale, type Locale } from "@/lib/i18n/locale";
+import { toothWords } from "@/lib/i18n/tooth-words";
 import { renderEmail } from "./render";
 import { reminderLink, reminderOneClickUrl } from "./reminder-token";
 import { mailFromAddress } from "./transport";
@@ -55,6 +58,9 @@ export type VisitRow = {
   email: string;
   patientName: string | null;
   materialName: string;
+  /** The patient's language, and the material's name in French where the clinic keeps one. */
+  language?: string | null;
+  materialNameFr?: string | null;
   /** Due times of this visit's other live reminders for the same start (to drop a superseded one). */
   otherReminderDueAts: Date[] | null;
   /** The latest calendar SEQUENCE sent for this visit (reminders repeat it). */
@@ -83,6 +89,7 @@ export async function loadMessage(outboxId: string): Promise<{ row: OutboxRow & 
                'remindersEnabled', a.reminders_enabled, 'statusReason', a.status_reason,
                'clinicName', c.name, 'clinicAddress', c.address, 'clinicPhone', c.phone, 'timeZone', c.time_zone,
                'reminderHoursSetting', c.settings->'reminderHoursBefore', 'email', u.email, 'patientName', u.name, 'materialName', m.name,
+               'language', p.language, 'materialNameFr', m.translations->'fr'->>'name',
                'otherReminderDueAts', (SELECT json_agg(x.due_at) FROM mail_outbox x
                   WHERE x.appointment_id = a.id AND x.kind = 'reminder' AND x.visit_starts_at = o.visit_starts_at
                     AND x.id <> o.id AND x.state IN ('pending', 'queued', 'sent')),
@@ -136,9 +143,18 @@ function staleReason(row: OutboxRow, visit: VisitRow, now: Date): string | null 
   }
 }
 
-function listHours(hours: number[]): string {
-  const words = hours.map((h) => `${h} hour${h === 1 ? "" : "s"}`);
-  return words.length > 1 ? `${words.slice(0, -1).join(", ")} and ${words.at(-1)} before` : `${words[0]} before`;
+function listHours(hours: number[], t: EmailT, locale: Locale): string {
+  return t("hoursBefore", { hours: formatList(hours.map((h) => t("hours", { count: h })), locale) });
+}
+
+function calendarWords(visit: VisitRow, cancelled: boolean, props: VisitMailProps, locale: Locale) {
+  const t = props.t ?? emailTranslator(locale);
+  return {
+    language: locale,
+    summary: t("calendar.summary", { cancelled: cancelled ? "yes" : "no", clinic: visit.clinicName }),
+    description: [t("calendar.crownFor", { tooth: props.toothWords, material: props.materialName }), t("calendar.allow", { length: props.lengthWords })],
+    alarm: t("calendar.alarm", { clinic: visit.clinicName }),
+  };
 }
 
 function messageId(key: string): string {
@@ -146,7 +162,7 @@ function messageId(key: string): string {
   return `<${createHash("sha256").update(key).digest("hex").slice(0, 40)}@${domain}>`;
 }
 
-function calendarAttachment(row: OutboxRow, visit: VisitRow, cancelled: boolean): Attachment {
+function calendarAttachment(row: OutboxRow, visit: VisitRow, cancelled: boolean, props: VisitMailProps, locale: Locale): Attachment {
   // A reminder carries the latest copy of the visit, so it repeats the latest sequence number.
   const sequence = row.kind === "reminder" ? (visit.latestSequence ?? 0) : Number(row.data.sequence ?? 0);
   const content = visitCalendar({
@@ -156,10 +172,11 @@ function calendarAttachment(row: OutboxRow, visit: VisitRow, cancelled: boolean)
     clinicName: visit.clinicName,
     clinicAddress: visit.clinicAddress,
     organizerEmail: mailFromAddress(),
-    toothWords: describeTooth(visit.tooth).words,
-    materialName: visit.materialName,
+    toothWords: props.toothWords,
+    materialName: props.materialName,
     sequence,
     cancelled,
+    words: locale === "en" ? undefined : calendarWords(visit, cancelled, props, locale),
   });
   return { filename: "crown-visit.ics", content, contentType: "text/calendar; charset=utf-8; method=PUBLISH" };
 }
@@ -171,17 +188,22 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
   if (stale) return { skip: stale };
 
   const base = (process.env.APP_URL ?? "http://localhost:3000").replace(/\/$/, "");
-  const when = visitWhen(visit.startsAt, visit.endsAt, visit.timeZone);
+  // Every e-mail is written in the patient's language, read when it is composed.
+  const locale: Locale = isLocale(visit.language) ? visit.language : "en";
+  const t = emailTranslator(locale);
+  const when = localVisitWhen(visit.startsAt, visit.endsAt, visit.timeZone, locale);
+  const minutes = (visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000;
   const props: VisitMailProps = {
     clinic: { name: visit.clinicName, address: visit.clinicAddress, phone: visit.clinicPhone },
     patientName: visit.patientName ?? "",
     when,
-    toothWords: describeTooth(visit.tooth).words,
-    materialName: visit.materialName,
-    lengthWords: durationWords((visit.endsAt.getTime() - visit.startsAt.getTime()) / 60_000),
+    toothWords: toothWords(visit.tooth, locale),
+    materialName: (locale === "fr" && visit.materialNameFr) || visit.materialName,
+    lengthWords: locale === "en" ? durationWords(minutes) : lengthWords(minutes, t),
     visitUrl: `${base}/patient/visits/${visit.id}`,
+    t,
   };
-  const at = shortWhen(visit.startsAt, visit.timeZone);
+  const at = locale === "en" ? shortWhen(visit.startsAt, visit.timeZone) : localShortWhen(visit.startsAt, visit.timeZone, locale);
   const attachments: Attachment[] = [];
   const headers: Record<string, string> = { "X-Cuspal-Visit": visit.id };
   let element: ReactElement;
@@ -190,13 +212,13 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
   switch (row.kind) {
     case "visit_requested":
       element = createElement(VisitRequestedEmail, props);
-      subject = `We have your crown visit request for ${at}`;
+      subject = t("requested.subject", { at });
       break;
     case "visit_confirmed": {
       const hours = reminderHours(visit.reminderHoursSetting).filter((h) => visit.startsAt.getTime() - h * 3_600_000 > now.getTime());
-      element = createElement(VisitConfirmedEmail, { ...props, reminderText: visit.remindersEnabled && hours.length ? listHours(hours) : null });
-      subject = `Confirmed: your crown visit on ${at}`;
-      attachments.push(calendarAttachment(row, visit, false));
+      element = createElement(VisitConfirmedEmail, { ...props, reminderText: visit.remindersEnabled && hours.length ? listHours(hours, t, locale) : null });
+      subject = t("confirmed.subject", { at });
+      attachments.push(calendarAttachment(row, visit, false, props, locale));
       break;
     }
     case "visit_moved": {
@@ -205,11 +227,11 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
       const length = visit.endsAt.getTime() - visit.startsAt.getTime();
       element = createElement(VisitMovedEmail, {
         ...props,
-        previous: prev ? visitWhen(prev, new Date(prev.getTime() + length), visit.timeZone) : null,
+        previous: prev ? localVisitWhen(prev, new Date(prev.getTime() + length), visit.timeZone, locale) : null,
         hasCalendar,
       });
-      subject = `New time: your crown visit is now on ${at}`;
-      if (hasCalendar) attachments.push(calendarAttachment(row, visit, false));
+      subject = t("moved.subject", { at });
+      if (hasCalendar) attachments.push(calendarAttachment(row, visit, false, props, locale));
       break;
     }
     case "visit_declined":
@@ -218,14 +240,14 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
       const hasCalendar = Boolean(row.data.calendar);
       // "Choose another time" leads back to the crown proposal, which stays open.
       element = createElement(VisitEndedEmail, { ...props, visitUrl: `${base}/patient/proposals/${visit.proposalId}`, outcome, reason: visit.statusReason, hasCalendar });
-      subject = outcome === "declined" ? `Your requested crown visit on ${at} could not be confirmed` : `Cancelled: your crown visit on ${at}`;
-      if (hasCalendar) attachments.push(calendarAttachment(row, visit, true));
+      subject = outcome === "declined" ? t("ended.subjectDeclined", { at }) : t("ended.subjectCancelled", { at });
+      if (hasCalendar) attachments.push(calendarAttachment(row, visit, true, props, locale));
       break;
     }
     case "reminder": {
-      element = createElement(ReminderEmail, { ...props, leadText: timeUntilWords(now, visit.startsAt), turnOffUrl: reminderLink(visit.id, visit.startsAt) });
-      subject = `Reminder: your crown visit on ${at}`;
-      attachments.push(calendarAttachment(row, visit, false));
+      element = createElement(ReminderEmail, { ...props, leadText: locale === "en" ? timeUntilWords(now, visit.startsAt) : timeUntil(now, visit.startsAt, t), turnOffUrl: reminderLink(visit.id, visit.startsAt) });
+      subject = t("reminder.subject", { at });
+      attachments.push(calendarAttachment(row, visit, false, props, locale));
       // One-click opt-out from the mail program itself (RFC 8058): a POST, never a GET.
       headers["List-Unsubscribe"] = `<${reminderOneClickUrl(visit.id, visit.startsAt)}>`;
       headers["List-Unsubscribe-Post"] = "List-Unsubscribe=One-Click";
@@ -233,23 +255,25 @@ export async function composeMail(row: OutboxRow, visit: VisitRow | null, now = 
     }
     case "aftercare":
       element = createElement(AftercareEmail, props);
-      subject = "After your crown visit: what is normal and when to call";
+      subject = t("aftercare.subject");
       break;
     case "consent_copy": {
       const filename = typeof row.data.filename === "string" ? row.data.filename : "consent.pdf";
       if (!row.attachment) return { skip: "The consent PDF is missing." };
       element = createElement(ConsentCopyEmail, { ...props, filename });
-      subject = "Your copy of your signed consent";
+      subject = t("consentCopy.subject");
       attachments.push({ filename, content: row.attachment, contentType: "application/pdf" });
       break;
     }
     case "deposit_paid":
     case "deposit_refunded": {
       const paid = row.kind === "deposit_paid";
-      const amountText = money(Number(row.data.amountCents), String(row.data.currency));
+      const amountText = formatMoney(Number(row.data.amountCents), String(row.data.currency), locale);
       const at = new Date(String(paid ? row.data.paidAt : row.data.refundedAt));
-      element = createElement(DepositReceiptEmail, { ...props, kind: paid ? "paid" : "refunded", amountText, atText: whenInZone(at, visit.timeZone), receiptNumber: receiptNumber(String(row.data.depositId), paid ? "paid" : "refunded") });
-      subject = paid ? `Receipt: your ${amountText} deposit for the visit on ${shortWhen(visit.startsAt, visit.timeZone)}` : `Refund receipt: your ${amountText} deposit`;
+      element = createElement(DepositReceiptEmail, { ...props, kind: paid ? "paid" : "refunded", amountText, atText: whenInZone(at, visit.timeZone, locale), receiptNumber: receiptNumber(String(row.data.depositId), paid ? "paid" : "refunded") });
+      subject = paid
+        ? t("deposit.subjectPaid", { amount: amountText, at: locale === "en" ? shortWhen(visit.startsAt, visit.timeZone) : localShortWhen(visit.startsAt, visit.timeZone, locale) })
+        : t("deposit.subjectRefunded", { amount: amountText });
       break;
     }
     default:

@@ -14,6 +14,7 @@ import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
 import { signedInUser, signInAs, signOut, type Person } from "../support/session";
 import { hugePng } from "../support/sample-files";
+import { DEFAULT_SECTIONS_FR, DEFAULT_TEMPLATE_TITLE_FR } from "@/lib/domain/consent-text-fr";
 
 vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
@@ -222,7 +223,16 @@ describe("signing", () => {
       user: signedInUser()!, ip: "198.51.100.2", userAgent: "ConsentTest/1.0",
       values: { title: "Consent to a same-day crown", sections: DEFAULT_SECTIONS.map((s) => (s.key === "costs" ? { ...s, body: `${s.body}\n\nPayment is due on the day.` } : s)) },
     });
-    expect(published).toEqual({ ok: true, version: 2 });
+    // Both languages are published together: without the French text nothing is published.
+    expect(published).toMatchObject({ ok: false, field: "fr" });
+    const bilingual = await publishTemplateVersion({
+      user: signedInUser()!, ip: "198.51.100.2", userAgent: "ConsentTest/1.0",
+      values: {
+        title: "Consent to a same-day crown", sections: DEFAULT_SECTIONS.map((s) => (s.key === "costs" ? { ...s, body: `${s.body}\n\nPayment is due on the day.` } : s)),
+        fr: { title: DEFAULT_TEMPLATE_TITLE_FR, sections: DEFAULT_SECTIONS_FR },
+      },
+    });
+    expect(bilingual).toEqual({ ok: true, version: 2 });
     expect((await ConsentTemplate.findByPk(old.templateId as string))!.status).toBe("withdrawn");
 
     as(user);

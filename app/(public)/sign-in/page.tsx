@@ -1,36 +1,39 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
+import { getTranslations } from "next-intl/server";
 import { Brand } from "@/components/brand";
+import { LanguageSwitcher } from "@/components/i18n/language-switcher";
 import { currentUser, homeFor } from "@/lib/auth/session";
 import { SignInForm } from "./sign-in-form";
 import { SignInLinkForm } from "./sign-in-link-form";
 
-export const metadata: Metadata = { title: "Sign in" };
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("signIn"))("title") };
+}
 export const dynamic = "force-dynamic";
 
-const LINK_ERRORS: Record<string, string> = {
-  AccessDenied: "That e-mail address has no patient account here. Ask your clinic to invite you.",
-  Verification: "That sign-in link has expired or was already used. Ask for a new one.",
-};
+const LINK_ERRORS = { AccessDenied: "errorAccessDenied", Verification: "errorVerification" } as const;
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ error?: string }> }) {
   const user = await currentUser();
   if (user) redirect(homeFor(user.role));
   const { error } = await searchParams;
+  const t = await getTranslations("signIn");
+  const linkError = error && Object.hasOwn(LINK_ERRORS, error) ? t(LINK_ERRORS[error as keyof typeof LINK_ERRORS]) : null;
   return (
     <main id="main" className="mx-auto flex min-h-dvh max-w-md flex-col justify-center gap-6 px-gutter py-10">
-      <Brand />
+      <div className="flex items-center justify-between gap-3"><Brand /><LanguageSwitcher /></div>
       <section className="card">
-        <h1 className="text-2xl font-bold">Sign in</h1>
-        <p className="mt-1 text-ink-soft">Patients and clinic staff sign in here.</p>
-        {error && LINK_ERRORS[error] ? (
-          <p role="alert" className="mt-3 rounded-lg bg-clay-50 p-3 text-sm text-clay-700">{LINK_ERRORS[error]}</p>
+        <h1 className="text-2xl font-bold">{t("title")}</h1>
+        <p className="mt-1 text-ink-soft">{t("intro")}</p>
+        {linkError ? (
+          <p role="alert" className="mt-3 rounded-lg bg-clay-50 p-3 text-sm text-clay-700">{linkError}</p>
         ) : null}
         <SignInForm />
       </section>
       <section className="card">
-        <h2 className="text-lg font-semibold">Patients: sign in without a password</h2>
-        <p className="mt-1 text-sm text-ink-soft">We e-mail you a link that signs you in once.</p>
+        <h2 className="text-lg font-semibold">{t("linkHeading")}</h2>
+        <p className="mt-1 text-sm text-ink-soft">{t("linkIntro")}</p>
         <SignInLinkForm />
       </section>
     </main>

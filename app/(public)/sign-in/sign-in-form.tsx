@@ -2,6 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
+import { useTranslations } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -9,6 +10,7 @@ import { CODE_NEEDED, signInSchema, type SignInInput, SIGN_IN_FAILED } from "@/l
 
 export function SignInForm() {
   const router = useRouter();
+  const t = useTranslations("signIn");
   const [message, setMessage] = useState<string | null>(null);
   // Staff who use two-factor sign-in get a second step after a correct password.
   const [askCode, setAskCode] = useState(false);
@@ -24,7 +26,7 @@ export function SignInForm() {
       return;
     }
     if (!result || result.error) {
-      setMessage(result?.error && result.error !== "CredentialsSignin" ? result.error : SIGN_IN_FAILED);
+      setMessage(result?.error && result.error !== "CredentialsSignin" && result.error !== SIGN_IN_FAILED ? result.error : t("failed"));
       return;
     }
     router.replace("/portal");
@@ -39,24 +41,24 @@ export function SignInForm() {
         </p>
       ) : null}
       <div className={askCode ? "hidden" : undefined}>
-        <label htmlFor="email" className="field-label">E-mail</label>
+        <label htmlFor="email" className="field-label">{t("email")}</label>
         <input id="email" type="email" autoComplete="username" className="field-input" aria-invalid={!!errors.email} aria-describedby={errors.email ? "email-error" : undefined} {...register("email")} />
-        {errors.email ? <p id="email-error" className="field-error">{errors.email.message}</p> : null}
+        {errors.email ? <p id="email-error" className="field-error">{t("emailInvalid")}</p> : null}
       </div>
       <div className={askCode ? "hidden" : undefined}>
-        <label htmlFor="password" className="field-label">Password</label>
+        <label htmlFor="password" className="field-label">{t("password")}</label>
         <input id="password" type="password" autoComplete="current-password" className="field-input" aria-invalid={!!errors.password} aria-describedby={errors.password ? "password-error" : undefined} {...register("password")} />
-        {errors.password ? <p id="password-error" className="field-error">{errors.password.message}</p> : null}
+        {errors.password ? <p id="password-error" className="field-error">{t("passwordMissing")}</p> : null}
       </div>
       {askCode ? (
         <div>
-          <label htmlFor="code" className="field-label">Sign-in code</label>
-          <p id="code-hint" className="text-sm text-ink-soft">The 6-digit code your authenticator app shows now, or one of your recovery codes.</p>
+          <label htmlFor="code" className="field-label">{t("codeLabel")}</label>
+          <p id="code-hint" className="text-sm text-ink-soft">{t("codeHint")}</p>
           <input id="code" inputMode="text" autoComplete="one-time-code" className="field-input" aria-describedby="code-hint" {...register("code")} />
         </div>
       ) : null}
       <button type="submit" className="btn-primary w-full" disabled={isSubmitting}>
-        {isSubmitting ? "Signing in…" : askCode ? "Confirm code" : "Sign in"}
+        {isSubmitting ? t("submitting") : askCode ? t("confirmCode") : t("submit")}
       </button>
     </form>
   );

@@ -53,7 +53,7 @@ export default async function PatientsPage({ searchParams }: { searchParams: Pro
               <li key={p.id} className="flex flex-col gap-1 py-3 sm:flex-row sm:items-center sm:justify-between">
                 <Link href={`/clinic/patients/${p.id}`} className="inline-flex min-h-6 items-center font-semibold">{p.name}</Link>
                 <span className="text-sm text-ink-muted">
-                  {[p.email, p.dateOfBirth ? `born ${p.dateOfBirth}` : null, p.phone ? displayPhone(p.phone, country) : null, LANGUAGE_NAMES[p.language], p.archived ? "archived" : null].filter(Boolean).join(" · ")}
+                  {[p.email, p.dateOfBirth ? `born ${p.dateOfBirth}` : null, p.phone ? displayPhone(p.phone, country) : null, p.archived ? "archived" : null].filter(Boolean).join(" · ")} · <span data-testid="patient-language">{LANGUAGE_NAMES[p.language]}</span>
                 </span>
               </li>
             ))}

@@ -10,6 +10,7 @@ const SECTIONS = [
   { href: "/clinic/settings/booking", label: "Booking and reminders" },
   { href: "/clinic/settings/payments", label: "Prices and deposit" },
   { href: "/clinic/settings/staff", label: "Staff" },
+  { href: "/clinic/settings/jurisdiction", label: "Jurisdiction" },
 ];
 
 /** Settings are for the clinic manager only; every action checks the role again. */

@@ -1,19 +1,23 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { getTranslations } from "next-intl/server";
 import { Brand } from "@/components/brand";
 
-export const metadata: Metadata = { title: "Check your e-mail" };
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("checkMail"))("title") };
+}
 
-export default function CheckMailPage() {
+export default async function CheckMailPage() {
+  const t = await getTranslations("checkMail");
   return (
     <main id="main" className="mx-auto flex min-h-dvh max-w-md flex-col justify-center gap-6 px-gutter py-10">
       <Brand />
       <section className="card">
-        <h1 className="text-2xl font-bold">Check your e-mail</h1>
+        <h1 className="text-2xl font-bold">{t("title")}</h1>
         <p className="mt-2 text-ink-soft">
-          If that address belongs to a patient of the clinic, a sign-in link is on its way. It works once, for 30 minutes.
+          {t("body", { minutes: 30 })}
         </p>
-        <p className="mt-4"><Link href="/sign-in">Back to sign in</Link></p>
+        <p className="mt-4"><Link href="/sign-in">{t("back")}</Link></p>
       </section>
     </main>
   );

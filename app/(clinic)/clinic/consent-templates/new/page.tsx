@@ -3,6 +3,7 @@ import Link from "next/link";
 import { requirePageUser } from "@/lib/auth/session";
 import { listTemplateVersions } from "@/lib/data/consents";
 import { PLACEHOLDER_HELP, PLACEHOLDERS, SECTION_PURPOSE } from "@/lib/domain/consent-text";
+import { DEFAULT_SECTIONS_FR, DEFAULT_TEMPLATE_TITLE_FR } from "@/lib/domain/consent-text-fr";
 import { TemplateForm } from "./template-form";
 
 export const metadata: Metadata = { title: "New consent text version" };
@@ -28,7 +29,7 @@ export default async function NewConsentTemplatePage() {
         </ul>
       </details>
       <TemplateForm
-        initial={{ title: current.title, sections: current.sections }}
+        initial={{ title: current.title, sections: current.sections, fr: { title: current.titleFr ?? DEFAULT_TEMPLATE_TITLE_FR, sections: current.sectionsFr ?? DEFAULT_SECTIONS_FR } }}
         purposes={SECTION_PURPOSE}
         nextVersion={versions[0].version + 1}
       />

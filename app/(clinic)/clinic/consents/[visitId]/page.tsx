@@ -12,6 +12,7 @@ import { WITHDRAWAL_CHANNEL_LABEL } from "@/lib/domain/consent-withdrawal";
 import { localDate, localTime } from "@/lib/domain/time-zone";
 import { RecordWithdrawal } from "./record-withdrawal";
 import { ReviewButton } from "./review-button";
+import { LOCALE_ENGLISH_NAMES } from "@/lib/i18n/locale";
 
 export const metadata: Metadata = { title: "Consent review" };
 
@@ -56,6 +57,9 @@ export default async function ConsentReviewPage({ params }: { params: Promise<{ 
               <h2 id="review-heading" className="text-lg font-semibold">Chairside review</h2>
               <p className="text-sm">
                 Signed by {signed.typedName} on {signed.signedAt ? when(signed.signedAt, zone) : ""} (consent text version {signed.templateVersion}).
+              </p>
+              <p className="text-sm" data-testid="signed-language">
+                Signed in <strong>{LOCALE_ENGLISH_NAMES[signed.language] ?? signed.language}</strong>: the patient read, signed and was sent the {LOCALE_ENGLISH_NAMES[signed.language] ?? signed.language} text.
               </p>
               {signed.status === "reviewed" ? (
                 <p className="font-medium text-sage-700" data-testid="reviewed-note">

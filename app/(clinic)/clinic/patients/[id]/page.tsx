@@ -10,6 +10,7 @@ import { EditDetailsForm } from "./edit-details-form";
 import { ArchiveButton, InviteButton } from "./patient-actions";
 import { PatientDocuments } from "./patient-documents";
 import { PatientBlocks } from "./patient-blocks";
+import { LOCALE_ENGLISH_NAMES } from "@/lib/i18n/locale";
 
 export const metadata: Metadata = { title: "Patient" };
 
@@ -40,7 +41,7 @@ export default async function PatientPage({ params }: { params: Promise<{ id: st
           {patient.dateOfBirth ? (<><dt className="text-ink-muted">Date of birth</dt><dd>{patient.dateOfBirth}</dd></>) : null}
           {patient.phone ? (<><dt className="text-ink-muted">Phone</dt><dd>{displayPhone(patient.phone, country)}</dd></>) : null}
           <dt className="text-ink-muted">Language</dt>
-          <dd>{LANGUAGE_NAMES[patient.language]}</dd>
+          <dd data-testid="patient-language">{LANGUAGE_NAMES[patient.language]}</dd>
           <dt className="text-ink-muted">Reminders</dt>
           <dd>{patient.reminders ? "By e-mail" : "Off"}</dd>
           {patient.address ? (<><dt className="text-ink-muted">Address</dt><dd className="whitespace-pre-line">{patient.address}</dd></>) : null}

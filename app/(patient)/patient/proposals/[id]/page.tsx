@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { getTranslations } from "next-intl/server";
 import { notFound, redirect } from "next/navigation";
 import { CautionsNote } from "@/components/cautions-note";
 import { requirePageUser } from "@/lib/auth/session";
@@ -7,20 +8,29 @@ import { loadTimeline } from "@/lib/booking/context";
 import { clinicOf } from "@/lib/data/clinics";
 import { getProposal } from "@/lib/data/proposals";
 import { PlanEstimateForm } from "@/components/payments/plan-estimate-form";
-import { PLAN_CAUTION } from "@/components/payments/visit-money";
 import { listMaterials } from "@/lib/data/materials";
 import { planEstimateOf } from "@/lib/data/payments";
 import { patientShareFor } from "@/lib/payments/deposits";
 import { money } from "@/lib/format";
 import { AppError } from "@/lib/server/errors";
+import type { Locale } from "@/lib/i18n/locale";
+import { currentLocale } from "@/lib/i18n/server";
+import { materialName, materialTexts } from "@/lib/i18n/material-texts";
+import { toothWords } from "@/lib/i18n/tooth-words";
 import { BookingFlow, type MaterialChoice } from "./booking-flow";
 
-export const metadata: Metadata = { title: "Choose and book" };
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("proposal"))("title") };
+}
 
-function depositNote(clinic: Awaited<ReturnType<typeof clinicOf>>): string | null {
+function depositNote(clinic: Awaited<ReturnType<typeof clinicOf>>, t: Awaited<ReturnType<typeof getTranslations>>, locale: Locale): string | null {
   if (clinic.depositKind === "none") return null;
-  const amount = clinic.depositKind === "fixed" ? money(clinic.depositValue, clinic.currency) : `${clinic.depositValue} % of your share`;
-  return `After booking, the clinic asks a deposit of ${amount} (never more than your share), paid online within 30 minutes. It is refunded in full if the clinic declines or cancels, or if you cancel at least ${clinic.depositRefundHours} hours before the visit.`;
+  return t("payments.depositAtBooking", {
+    kind: clinic.depositKind,
+    amount: money(clinic.depositValue, clinic.currency, locale),
+    percent: clinic.depositValue,
+    hours: clinic.depositRefundHours,
+  });
 }
 
 export default async function ProposalPage({ params }: { params: Promise<{ id: string }> }) {
@@ -35,6 +45,8 @@ export default async function ProposalPage({ params }: { params: Promise<{ id: s
   const clinic = await clinicOf(user);
   const catalogue = await listMaterials({ clinicId: row.clinicId });
   const estimate = await planEstimateOf(row.id);
+  const locale = await currentLocale();
+  const t = await getTranslations();
 
   const choices: MaterialChoice[] = [];
   for (const option of view.materials) {
@@ -51,25 +63,28 @@ export default async function ProposalPage({ params }: { params: Promise<{ id: s
     }
     if (!modes.length) continue;
     const share = await patientShareFor(row.id, option.feeCents);
-    choices.push({ feeCents: option.feeCents, patientShareCents: share.planShareCents === null ? null : share.patientShareCents, id: m.id, name: m.name, description: m.description, pros: m.pros, cautions: m.cautions, heatTreatment: m.heatTreatment, provisionalOnly: m.indications.provisionalOnly, modes });
+    choices.push({
+      feeCents: option.feeCents, patientShareCents: share.planShareCents === null ? null : share.patientShareCents,
+      id: m.id, name: materialName(m, locale), ...materialTexts(m, locale), heatTreatment: m.heatTreatment, provisionalOnly: m.indications.provisionalOnly, modes,
+    });
   }
 
   return (
     <div className="mx-auto max-w-read space-y-5">
-      <p><Link href="/patient">← My crown</Link></p>
+      <p><Link href="/patient">{t("visit.backHome")}</Link></p>
       <header>
-        <p className="text-sm font-semibold text-harbour-700">Tooth {view.tooth.fdi} · Universal {view.tooth.universal}</p>
-        <h1 className="text-2xl font-bold first-letter:uppercase">{view.tooth.words}</h1>
-        {view.note ? <p className="mt-1 text-ink-soft">{view.dentist.name}: “{view.note}”</p> : null}
+        <p className="text-sm font-semibold text-harbour-700">{t("common.toothLine", { fdi: view.tooth.fdi, universal: view.tooth.universal })}</p>
+        <h1 className="text-2xl font-bold first-letter:uppercase">{toothWords(view.tooth.fdi, locale)}</h1>
+        {view.note ? <p className="mt-1 text-ink-soft" data-free-text>{t("proposal.dentistNote", { dentist: view.dentist.name ?? "", note: view.note })}</p> : null}
       </header>
       <details className="card text-sm">
-        <summary className="cursor-pointer font-semibold">Have a dental plan? Estimate your share of each fee</summary>
+        <summary className="cursor-pointer font-semibold">{t("payments.planSummary")}</summary>
         <div className="mt-3">
           <PlanEstimateForm proposalId={view.id} initial={estimate ? { coveragePercent: String(estimate.coveragePercent), deductibleRemaining: (estimate.deductibleRemainingCents / 100).toFixed(2), annualMaxRemaining: (estimate.annualMaxRemainingCents / 100).toFixed(2), preauthReference: estimate.preauthReference ?? "" } : {}} />
-          <p className="mt-2 text-xs text-ink-soft">{PLAN_CAUTION}</p>
+          <p className="mt-2 text-xs text-ink-soft">{t("payments.planCaution")}</p>
         </div>
       </details>
-      <BookingFlow proposalId={view.id} currency={clinic.currency} depositNote={depositNote(clinic)} timezone={clinic.timeZone} choices={choices} />
+      <BookingFlow locale={locale} proposalId={view.id} currency={clinic.currency} depositNote={depositNote(clinic, t, locale)} timezone={clinic.timeZone} choices={choices} />
       <CautionsNote />
     </div>
   );

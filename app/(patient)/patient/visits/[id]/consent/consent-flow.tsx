@@ -1,24 +1,45 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useTranslations } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import type SignatureCanvas from "react-signature-canvas";
 import { SectionBody, VisitRows } from "@/components/consent/consent-document";
-import { ANSWER_LABELS, ANSWERS, QUESTIONS, type Question } from "@/lib/domain/consent-questionnaire";
+import { ANSWERS, QUESTIONS, type Question } from "@/lib/domain/consent-questionnaire";
 import { consentFormSchema, type ConsentFormInput, type ConsentFormValues } from "@/lib/domain/consent-schemas";
 import type { AssembledConsent } from "@/lib/domain/consent-text";
 import { checkDrawnSignature, SignaturePad } from "./signature-pad";
 
 type Props = { appointmentId: string; templateId: string; textSha256: string; document: AssembledConsent; patientName: string };
 
-const STEPS = ["Your health", "Read the consent", "Sign"] as const;
+const STEPS = ["stepHealth", "stepRead", "stepSign"] as const;
 const GROUPS = [...new Set(QUESTIONS.map((q) => q.group))];
+
+// The shared schema's messages are English; the form shows the catalogue's sentence for each.
+const ERROR_KEYS: Record<string, "chooseAnswer" | "tickEvery" | "agreeRecords" | "typeName" | "nameTooLong"> = {
+  "Choose an answer.": "chooseAnswer",
+  "Please read and tick every section before signing.": "tickEvery",
+  "Please agree to sign and receive records electronically, or ask the clinic for paper.": "agreeRecords",
+  "Type your full name.": "typeName",
+  "That name is too long.": "nameTooLong",
+};
 
 /** Questionnaire → read and tick each section → agree to e-records, type name, draw signature → sign. */
 export function ConsentFlow({ appointmentId, templateId, textSha256, document, patientName }: Props) {
   const router = useRouter();
+  const t = useTranslations("consent");
+  const tq = useTranslations("questionnaire");
+  const tc = useTranslations("common");
+  const te = useTranslations("consentErrors");
+  const say = (message: string | undefined) => {
+    if (!message) return message;
+    const key = ERROR_KEYS[message];
+    if (key) return te(key);
+    const max = message.match(/^Keep this under (\d+) characters\.$/);
+    return max ? te("tooLong", { max: Number(max[1]) }) : message;
+  };
   const [step, setStep] = useState(0);
   const heading = useRef<HTMLHeadingElement>(null);
   const pad = useRef<SignatureCanvas | null>(null);
@@ -51,7 +72,8 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
   async function sign(values: ConsentFormValues) {
     setServerError(null);
     const problem = checkDrawnSignature(pad.current);
-    setSignatureError(problem);
+    // The rule's own sentences are English; the patient reads the catalogue's.
+    setSignatureError(problem ? t(!pad.current || pad.current.isEmpty() ? "emptySignature" : "signatureTooSmall") : null);
     if (problem) return;
     let res: Response;
     try {
@@ -61,7 +83,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
         body: JSON.stringify({ ...values, appointmentId, templateId, textSha256, signature: pad.current!.toDataURL("image/png") }),
       });
     } catch {
-      setServerError({ message: "We could not reach the clinic's server. Check your connection and try again.", reload: false });
+      setServerError({ message: t("unreachable"), reload: false });
       return;
     }
     if (res.status === 201) {
@@ -70,7 +92,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
       return;
     }
     const body: { error?: string; field?: string } = await res.json().catch(() => ({}));
-    const message = body.error ?? "Signing did not work. Please try again.";
+    const message = body.error ?? t("signFailed");
     if (body.field === "signature") setSignatureError(message);
     else if (body.field === "typedName") setError("typedName", { message }, { shouldFocus: true });
     else setServerError({ message, reload: body.field === "templateId" || body.field === "textSha256" });
@@ -79,41 +101,41 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
   if (done) {
     return (
       <p role="status" className="card font-semibold" data-testid="consent-signed">
-        Thank you. Your consent is signed and sealed; a copy is on its way to your e-mail.
+        {t("thanks")}
       </p>
     );
   }
 
-  const answerError = (q: Question) => errors.answers?.[q.key]?.message;
+  const answerError = (q: Question) => say(errors.answers?.[q.key]?.message);
 
   return (
     <form onSubmit={(e) => void handleSubmit(sign)(e)} noValidate className="space-y-5" aria-describedby="consent-steps">
-      <ol id="consent-steps" className="flex gap-2 text-sm" aria-label="Steps">
+      <ol id="consent-steps" className="flex gap-2 text-sm" aria-label={t("steps")}>
         {STEPS.map((label, i) => (
           <li key={label} aria-current={i === step ? "step" : undefined}
             className={`flex-1 rounded-md border px-2 py-1 text-center ${i === step ? "border-harbour-600 bg-harbour-50 font-semibold text-harbour-800" : i < step ? "border-line bg-white text-ink-soft" : "border-line text-ink-muted"}`}>
-            {i + 1}. {label}
+            {i + 1}. {t(label)}
           </li>
         ))}
       </ol>
       <h2 ref={heading} tabIndex={-1} className="text-xl font-semibold outline-none">
-        Step {step + 1} of {STEPS.length}: {STEPS[step]}
+        {t("stepHeading", { step: step + 1, total: STEPS.length, label: t(STEPS[step]) })}
       </h2>
 
       <div hidden={step !== 0} className="space-y-5">
-        <p>These questions help your dentist keep you safe. Answer as well as you can; &ldquo;Not sure&rdquo; is a fine answer, and your dentist will ask you about it.</p>
+        <p>{t("healthIntro")}</p>
         {GROUPS.map((group) => (
           <section key={group} className="card space-y-4" aria-labelledby={`group-${group}`}>
-            <h3 id={`group-${group}`} className="text-lg font-semibold">{group}</h3>
+            <h3 id={`group-${group}`} className="text-lg font-semibold">{tq(`groups.${group}`)}</h3>
             {QUESTIONS.filter((q) => q.group === group).map((q) => (
               <fieldset key={q.key} aria-describedby={answerError(q) ? `${q.key}-error` : undefined} data-testid={`question-${q.key}`}>
-                <legend className="mb-1 font-medium">{q.text}</legend>
-                {q.hint ? <p className="mb-1 text-sm text-ink-soft">{q.hint}</p> : null}
+                <legend className="mb-1 font-medium">{tq(`questions.${q.key}`)}</legend>
+                {tq.has(`hints.${q.key}`) ? <p className="mb-1 text-sm text-ink-soft">{tq(`hints.${q.key}`)}</p> : null}
                 <div className="flex flex-wrap gap-2">
                   {ANSWERS.map((a) => (
                     <label key={a} className="inline-flex min-h-11 cursor-pointer items-center gap-2 rounded-lg border border-ink-muted bg-white px-3 has-[:checked]:border-harbour-600 has-[:checked]:bg-harbour-50 has-[:checked]:font-semibold">
                       <input type="radio" value={a} className="size-5 accent-harbour-600" {...register(`answers.${q.key}`, { onChange: () => clearErrors(`answers.${q.key}`) })} />
-                      {ANSWER_LABELS[a]}
+                      {tq(`answers.${a}`)}
                     </label>
                   ))}
                 </div>
@@ -123,28 +145,28 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
           </section>
         ))}
         <section className="card space-y-4" aria-labelledby="group-more">
-          <h3 id="group-more" className="text-lg font-semibold">In your own words</h3>
+          <h3 id="group-more" className="text-lg font-semibold">{t("ownWords")}</h3>
           <div>
-            <label htmlFor="otherAllergies" className="field-label">Any other allergies? (optional)</label>
+            <label htmlFor="otherAllergies" className="field-label">{t("otherAllergies")}</label>
             <textarea id="otherAllergies" rows={2} className="field-input" {...register("answers.otherAllergies")} />
-            {errors.answers?.otherAllergies ? <p className="field-error">{errors.answers.otherAllergies.message}</p> : null}
+            {errors.answers?.otherAllergies ? <p className="field-error">{say(errors.answers.otherAllergies.message)}</p> : null}
           </div>
           <div>
-            <label htmlFor="medicines" className="field-label">Medicines you take (optional)</label>
+            <label htmlFor="medicines" className="field-label">{t("medicines")}</label>
             <textarea id="medicines" rows={2} className="field-input" {...register("answers.medicines")} />
           </div>
           <div>
-            <label htmlFor="notes" className="field-label">Anything else your dentist should know? (optional)</label>
+            <label htmlFor="notes" className="field-label">{t("notes")}</label>
             <textarea id="notes" rows={2} className="field-input" {...register("answers.notes")} />
           </div>
         </section>
-        <button type="button" className="btn-primary w-full" onClick={next}>Continue to the consent</button>
+        <button type="button" className="btn-primary w-full" onClick={next}>{t("toConsent")}</button>
       </div>
 
       <div hidden={step !== 1} className="space-y-4">
-        <p>Please read each part and tick it. Ask your dentist about anything that is unclear, before you sign or at the clinic.</p>
+        <p>{t("readIntro")}</p>
         <section className="card space-y-2" aria-labelledby="visit-heading">
-          <h3 id="visit-heading" className="text-lg font-semibold">Your visit</h3>
+          <h3 id="visit-heading" className="text-lg font-semibold">{t("yourVisit")}</h3>
           <VisitRows rows={document.visit} />
         </section>
         {document.sections.map((s) => (
@@ -153,14 +175,14 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
             <SectionBody section={s} />
             <label className="flex min-h-11 cursor-pointer items-center gap-3 rounded-lg bg-paper p-2 font-medium">
               <input type="checkbox" value={s.key} className="size-6 accent-harbour-600" {...register("acknowledged", { onChange: () => { if (errors.acknowledged) void trigger("acknowledged"); } })} />
-              I have read and understood this part
+              {t("understood")}
             </label>
           </section>
         ))}
-        {errors.acknowledged ? <p className="field-error" role="alert">{errors.acknowledged.message ?? errors.acknowledged.root?.message}</p> : null}
+        {errors.acknowledged ? <p className="field-error" role="alert">{say(errors.acknowledged.message ?? errors.acknowledged.root?.message)}</p> : null}
         <div className="flex gap-2">
-          <button type="button" className="btn-quiet" onClick={() => setStep(0)}>Back</button>
-          <button type="button" className="btn-primary flex-1" onClick={next}>Continue to signing</button>
+          <button type="button" className="btn-quiet" onClick={() => setStep(0)}>{tc("back")}</button>
+          <button type="button" className="btn-primary flex-1" onClick={next}>{t("toSigning")}</button>
         </div>
       </div>
 
@@ -168,7 +190,7 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
         {serverError ? (
           <div role="alert" className="rounded-lg bg-clay-50 p-3 text-clay-700" data-testid="sign-error">
             <p className="font-medium">{serverError.message}</p>
-            {serverError.reload ? <button type="button" className="btn-quiet mt-2" onClick={() => window.location.reload()}>Reload the page</button> : null}
+            {serverError.reload ? <button type="button" className="btn-quiet mt-2" onClick={() => window.location.reload()}>{t("reload")}</button> : null}
           </div>
         ) : null}
         <section className="card space-y-2" aria-labelledby="records-heading">
@@ -176,26 +198,26 @@ export function ConsentFlow({ appointmentId, templateId, textSha256, document, p
           {document.electronicRecords.text.map((t) => <p key={t}>{t}</p>)}
           <label className="flex min-h-11 cursor-pointer items-center gap-3 rounded-lg bg-paper p-2 font-medium">
             <input type="checkbox" className="size-6 accent-harbour-600" aria-describedby={errors.electronicRecords ? "records-error" : undefined} {...register("electronicRecords", { onChange: () => clearErrors("electronicRecords") })} />
-            I agree to sign and receive these records electronically
+            {t("agreeRecords")}
           </label>
-          {errors.electronicRecords ? <p id="records-error" className="field-error">{errors.electronicRecords.message}</p> : null}
+          {errors.electronicRecords ? <p id="records-error" className="field-error">{say(errors.electronicRecords.message)}</p> : null}
         </section>
         <section className="card space-y-4" aria-labelledby="sign-heading">
-          <h3 id="sign-heading" className="text-lg font-semibold">Your signature</h3>
-          <p>By signing you confirm that you have read this consent, had the chance to ask questions, and agree to the treatment described.</p>
+          <h3 id="sign-heading" className="text-lg font-semibold">{t("signature")}</h3>
+          <p>{t("signatureIntro")}</p>
           <div>
-            <label htmlFor="typedName" className="field-label">Type your full name</label>
-            <p id="typedName-hint" className="mb-1 text-sm text-ink-soft">As the clinic has it: {patientName}</p>
+            <label htmlFor="typedName" className="field-label">{t("typeName")}</label>
+            <p id="typedName-hint" className="mb-1 text-sm text-ink-soft">{t("asClinicHasIt", { name: patientName })}</p>
             <input id="typedName" autoComplete="name" className="field-input" aria-invalid={!!errors.typedName}
               aria-describedby={errors.typedName ? "typedName-hint typedName-error" : "typedName-hint"} {...register("typedName")} />
-            {errors.typedName ? <p id="typedName-error" className="field-error">{errors.typedName.message}</p> : null}
+            {errors.typedName ? <p id="typedName-error" className="field-error">{say(errors.typedName.message)}</p> : null}
           </div>
           {/* Mounted only when visible: the canvas takes its pixel size from its box when it mounts. */}
           {step === 2 ? <SignaturePad padRef={pad} error={signatureError} onChange={() => setSignatureError(null)} /> : null}
         </section>
         <div className="flex gap-2">
-          <button type="button" className="btn-quiet" onClick={() => setStep(1)}>Back</button>
-          <button type="submit" className="btn-primary flex-1" disabled={isSubmitting}>{isSubmitting ? "Signing…" : "Sign consent"}</button>
+          <button type="button" className="btn-quiet" onClick={() => setStep(1)}>{tc("back")}</button>
+          <button type="submit" className="btn-primary flex-1" disabled={isSubmitting}>{isSubmitting ? t("signing") : t("sign")}</button>
         </div>
       </div>
     </form>

@@ -1,5 +1,6 @@
 "use client";
 
+import { useTranslations } from "next-intl";
 import type { RefObject } from "react";
 import SignatureCanvas from "react-signature-canvas";
 import { inkStats, signatureProblem } from "@/lib/domain/consent-signature";
@@ -17,10 +18,11 @@ export function checkDrawnSignature(pad: SignatureCanvas | null): string | null 
 
 /** A finger- or mouse-drawn signature box (react-signature-canvas), sized to its container. */
 export function SignaturePad({ padRef, error, onChange }: { padRef: RefObject<SignatureCanvas | null>; error?: string | null; onChange?: () => void }) {
+  const t = useTranslations("consent");
   return (
     <div>
-      <p id="signature-label" className="field-label">Draw your signature</p>
-      <p id="signature-hint" className="mb-2 text-sm text-ink-soft">Use your finger (or the mouse) inside the box.</p>
+      <p id="signature-label" className="field-label">{t("drawSignature")}</p>
+      <p id="signature-hint" className="mb-2 text-sm text-ink-soft">{t("drawHint")}</p>
       <div className={`rounded-lg border-2 bg-white ${error ? "border-clay-600" : "border-ink-muted"}`}>
         <SignatureCanvas
           ref={padRef}
@@ -40,7 +42,7 @@ export function SignaturePad({ padRef, error, onChange }: { padRef: RefObject<Si
       </div>
       {error ? <p id="signature-error" className="field-error" role="alert">{error}</p> : null}
       <button type="button" className="btn-quiet mt-2" onClick={() => { padRef.current?.clear(); onChange?.(); }}>
-        Clear the box
+        {t("clearBox")}
       </button>
     </div>
   );

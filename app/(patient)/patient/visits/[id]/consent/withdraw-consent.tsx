@@ -1,11 +1,14 @@
 "use client";
 
+import { useTranslations } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 
 /** Withdrawing consent before the visit: asks once more, takes an optional reason. */
 export function WithdrawConsent({ consentId }: { consentId: string }) {
   const router = useRouter();
+  const t = useTranslations("consent");
+  const tc = useTranslations("common");
   const [asking, setAsking] = useState(false);
   const [reason, setReason] = useState("");
   const [busy, setBusy] = useState(false);
@@ -26,27 +29,27 @@ export function WithdrawConsent({ consentId }: { consentId: string }) {
       return;
     }
     const body = await res.json().catch(() => ({}));
-    setError(body.error ?? "That did not work. Please try again or call the clinic.");
+    setError(body.error ?? t("withdrawFailed"));
   }
 
   return (
     <section className="card space-y-3" aria-labelledby="withdraw-heading">
-      <h2 id="withdraw-heading" className="text-lg font-semibold">Changed your mind?</h2>
-      <p>You can withdraw your consent at any time before the visit. The signed record is kept, and the crown will not be made unless you sign again.</p>
+      <h2 id="withdraw-heading" className="text-lg font-semibold">{t("withdrawHeading")}</h2>
+      <p>{t("withdrawIntro")}</p>
       {error ? <p role="alert" className="field-error">{error}</p> : null}
       {asking ? (
         <div className="space-y-3">
           <div>
-            <label htmlFor="withdraw-reason" className="field-label">Reason (optional)</label>
+            <label htmlFor="withdraw-reason" className="field-label">{tc("reason")}</label>
             <textarea id="withdraw-reason" className="field-input" rows={2} maxLength={500} value={reason} onChange={(e) => setReason(e.target.value)} />
           </div>
           <div className="flex flex-wrap gap-2">
-            <button type="button" className="btn-danger" onClick={withdraw} disabled={busy}>{busy ? "Withdrawing…" : "Yes, withdraw my consent"}</button>
-            <button type="button" className="btn-quiet" onClick={() => setAsking(false)} disabled={busy}>Keep my consent</button>
+            <button type="button" className="btn-danger" onClick={withdraw} disabled={busy}>{busy ? t("withdrawing") : t("withdrawConfirm")}</button>
+            <button type="button" className="btn-quiet" onClick={() => setAsking(false)} disabled={busy}>{t("keep")}</button>
           </div>
         </div>
       ) : (
-        <button type="button" className="btn-quiet" onClick={() => setAsking(true)}>Withdraw my consent</button>
+        <button type="button" className="btn-quiet" onClick={() => setAsking(true)}>{t("withdraw")}</button>
       )}
     </section>
   );
