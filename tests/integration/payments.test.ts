@@ -324,7 +324,8 @@ describe("fees per material", () => {
 describe("dental-plan estimate", () => {
   it("the patient saves their figures; the visit shows the estimated shares; others get 404", async () => {
     const { actor, visit, proposal } = await bookOne();
-    const put = (body: unknown) => planRoute(new NextRequest(`http://localhost/api/proposals/${proposal.id}/plan-estimate`, { method: "PUT", body: JSON.stringify(body) }), { params: Promise.resolve({ id: proposal.id }) });
+    // A JSON body declares its type, as our pages send it (without it the route answers 415).
+    const put = (body: unknown) => planRoute(new NextRequest(`http://localhost/api/proposals/${proposal.id}/plan-estimate`, { method: "PUT", body: JSON.stringify(body), headers: { "content-type": "application/json" } }), { params: Promise.resolve({ id: proposal.id }) });
     auth.user = actor.user;
     const bad = await put({ coveragePercent: 150, deductibleRemaining: "0", annualMaxRemaining: "0" });
     expect(bad.status).toBe(400);
