@@ -30,6 +30,9 @@ async function fill(f: Fill, w: World): Promise<string> {
     case "outage": return w.make.outage();
     case "proposal": return w.proposal.id;
     case "token": return w.make.token();
+    // Payments
+    case "dueDepositVisit": return w.money.dueDepositVisit();
+    case "paidDepositVisit": return w.money.paidDepositVisit();
   }
 }
 
