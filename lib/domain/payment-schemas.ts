@@ -1,6 +1,7 @@
 // zod schemas for the money forms, shared by the browser and the server. Amounts typed by people
 // are dollars-and-cents strings turned into integer cents here; nothing is trusted as a float.
 import { z } from "zod";
+import { calendarDateSchema } from "./input";
 
 /** "1,234.50" / "1234.5" / "200" → 123450 / 123450 / 20000 cents. */
 export const centsFromText = (what: string) =>
@@ -52,7 +53,8 @@ export const depositPolicySchema = z
 
 export const paymentsQuerySchema = z.object({
   status: z.enum(["due", "paid", "refunded", "waived", "released"], { message: "Unknown status." }).optional(),
-  from: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "from must be a date like 2027-03-15." }).optional(),
-  to: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "to must be a date like 2027-03-15." }).optional(),
+  // Real calendar days only: 2027-02-30 is refused here rather than by the database.
+  from: calendarDateSchema("from").optional(),
+  to: calendarDateSchema("to").optional(),
   format: z.enum(["json", "csv"], { message: "format is json or csv." }).optional(),
 });

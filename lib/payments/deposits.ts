@@ -11,7 +11,7 @@ import { depositFor, depositRefundable, estimatePlanShare, type DepositPolicy } 
 import { env } from "@/lib/env";
 import { enqueueMail } from "@/lib/mail/outbox";
 import { recordAudit } from "@/lib/server/audit";
-import { AppError, conflict, forbidden, notFound } from "@/lib/server/errors";
+import { AppError, conflict, forbidden } from "@/lib/server/errors";
 import { payments } from "./client";
 
 export type DepositRow = {
@@ -218,7 +218,8 @@ export async function waiveDeposit(actor: Actor, appointmentId: string, reason: 
   await assertCanSee(actor.user, visit, "That visit");
   return sequelize.transaction(async (transaction) => {
     const deposit = await depositOf(visit!.id, { transaction, lock: true });
-    if (!deposit) throw notFound("A deposit for that visit");
+    // The visit is the caller's to see; having no deposit is its state (409), not a missing row.
+    if (!deposit) throw conflict("This visit has no deposit to waive.");
     if (deposit.status !== "due") throw conflict(`The deposit is ${deposit.status}, so it cannot be waived.`);
     await setDeposit(deposit.id, { status: "waived", closed_reason: reason }, transaction);
     await recordAudit({ clinicId: deposit.clinicId, actorUserId: actor.user.id, action: "deposit.waived", subjectType: "appointment", subjectId: visit!.id, ip: actor.ip, userAgent: actor.userAgent, data: { depositId: deposit.id, reason } }, transaction);

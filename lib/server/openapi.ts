@@ -15,6 +15,8 @@ import {
   appointmentListQuery, boardQuery, consentListQuery, consentPdfQuery, documentListQuery, documentOpenQuery,
   fileUploadBody, reminderFormBody, reminderJsonBody, visitAvailabilityQuery,
 } from "./route-schemas";
+// Payments
+import { deskPaymentSchema, paymentsQuerySchema, planEstimateSchema, waiveSchema } from "@/lib/domain/payment-schemas";
 
 type Who = "anyone" | "signed-in" | "token" | readonly ("patient" | "reception" | "dentist" | "admin")[];
 
@@ -32,6 +34,8 @@ export type ApiOperation = {
   ok: { status: number; description: string; type?: string };
   /** Body cap when it differs from the JSON default. */
   maxBytes?: number;
+  /** Answers beyond the common 4xx list (a 502 when the payment service is down). */
+  moreErrors?: Record<string, string>;
 };
 
 const STAFF = ["reception", "dentist", "admin"] as const;
@@ -88,6 +92,20 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: "patch", path: "/api/me", summary: "Change one's phone, language, reminders or e-mail (a new e-mail waits for its link)", who: ["patient"], json: updateMeSchema(DEFAULT_COUNTRY), ok: { status: 200, description: "The profile, and whether an e-mail change is pending", ...json } },
   { method: "get", path: "/api/me/export", summary: "The signed-in patient's records as a ZIP", who: ["patient"], ok: { status: 200, description: "The ZIP", type: "application/zip" } },
   { method: "get", path: "/api/me/email", summary: "Confirm a new e-mail address with the link sent to it (query: token)", who: "token", ok: { status: 303, description: "Redirect to the profile page with the outcome" } },
+
+  // Payments
+  { method: "get", path: "/api/appointments/{id}", summary: "One visit with its money: fee, plan estimate, deposit, balance", who: ["patient", ...STAFF], ok: { status: 200, description: "The visit", ...json } },
+  {
+    method: "post", path: "/api/appointments/{id}/deposit", summary: "Open the payment service's page for the visit's due deposit (the amount is the server's)", who: ["patient", "reception", "admin"],
+    ok: { status: 200, description: "`{ checkoutUrl }`: send the payer there", ...json },
+    moreErrors: { "502": "The payment service did not answer; nothing was charged" },
+  },
+  { method: "post", path: "/api/appointments/{id}/deposit/waive", summary: "Waive the visit's due deposit, with a reason", who: ["reception", "admin"], json: waiveSchema, ok: { status: 200, description: "The deposit, now waived", ...json } },
+  { method: "post", path: "/api/appointments/{id}/desk-payments", summary: "Record money taken at the desk toward the visit's fee", who: ["reception", "admin"], json: deskPaymentSchema, ok: { status: 201, description: "The recorded payment", ...json } },
+  { method: "get", path: "/api/appointments/{id}/receipt", summary: "The receipt of the visit's paid deposit", who: ["patient", ...STAFF], ok: { status: 200, description: "The receipt PDF (404 until the deposit is paid)", type: "application/pdf" } },
+  { method: "get", path: "/api/payments", summary: "The clinic's deposits with totals, filtered by status and booking day", who: STAFF, query: paymentsQuerySchema, ok: { status: 200, description: "The deposits (`format=csv`: the same rows as text/csv)", ...json } },
+  { method: "post", path: "/api/payments/webhook", summary: "The payment service's events; no session, the Stripe-Signature header over the raw body is checked (400 when it does not match)", who: "anyone", ok: { status: 200, description: "Received (a replayed event changes nothing)", ...json } },
+  { method: "put", path: "/api/proposals/{id}/plan-estimate", summary: "Save the dental-plan figures of a proposal; the shares are computed by the server", who: ["patient", ...STAFF], json: planEstimateSchema, ok: { status: 200, description: "The saved figures", ...json } },
 ];
 
 const ERRORS: Record<string, string> = {
@@ -131,7 +149,7 @@ export function buildOpenApi(baseUrl?: string) {
     const responses: Record<string, unknown> = {
       [String(op.ok.status)]: { description: op.ok.description, ...(op.ok.type ? { content: { [op.ok.type]: { schema: {} } } } : {}) },
     };
-    for (const [code, description] of Object.entries(ERRORS)) {
+    for (const [code, description] of Object.entries({ ...ERRORS, ...op.moreErrors })) {
       if (!mutating && (code === "413" || code === "415")) continue;
       responses[code] = { description, content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } };
     }
@@ -141,7 +159,7 @@ export function buildOpenApi(baseUrl?: string) {
       description: `${whoText(op.who)}${mutating && Object.keys(content).length ? ` Body at most ${Math.round(limit / 1024)} kB.` : ""}`,
       operationId: `${op.method}${op.path.replace(/[{}]/g, "").replace(/[^a-zA-Z0-9]+(.)?/g, (_, c: string | undefined) => (c ? c.toUpperCase() : ""))}`,
       ...(parameters.length ? { parameters } : {}),
-      ...(Object.keys(content).length ? { requestBody: { required: op.method === "post" && !!op.json && op.path !== "/api/consents/{id}/withdraw", content } } : {}),
+      ...(Object.keys(content).length ? { requestBody: { required: (op.method === "post" || op.method === "put") && !!op.json && op.path !== "/api/consents/{id}/withdraw", content } } : {}),
       responses,
       ...(op.who === "anyone" || op.who === "token" ? { security: [] } : {}),
     };

@@ -329,3 +329,58 @@ describe("dental-plan estimate", () => {
     expect((await put({ coveragePercent: 10, deductibleRemaining: "0", annualMaxRemaining: "0" })).status).toBe(404);
   });
 });
+
+// Payments routes: the refusals the route × role matrix (one row per method) does not reach.
+const { POST: depositRoute } = await import("@/app/api/appointments/[id]/deposit/route");
+const { POST: waiveRoute } = await import("@/app/api/appointments/[id]/deposit/waive/route");
+describe("payments routes refuse bad input and wrong states with 4xx", () => {
+  const post = (handler: typeof depositRoute, path: string, id: string, body?: unknown) =>
+    handler(
+      new NextRequest(`http://localhost${path}`, { method: "POST", ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }) }),
+      { params: Promise.resolve({ id }) },
+    );
+
+  it("a path id that is not a UUID is a 400 naming id, before any lookup", async () => {
+    setSessionUser(asUser(t.staff.reception));
+    for (const id of ["-".repeat(36), "9".repeat(36), "not-a-visit"]) {
+      const res = await visitRoute(new NextRequest(`http://localhost/api/appointments/${id}`), { params: Promise.resolve({ id }) });
+      expect(res.status, id).toBe(400);
+      expect((await res.json()).field, id).toBe("id");
+      const receipt = await receiptRoute(new NextRequest(`http://localhost/api/appointments/${id}/receipt`), { params: Promise.resolve({ id }) });
+      expect(receipt.status, id).toBe(400);
+    }
+  });
+
+  it("an impossible day in the payments list's query is a 400 naming it", async () => {
+    setSessionUser(asUser(t.staff.admin));
+    // [C] common practice, no source: February 2027 has 28 days, and there is no month 13.
+    for (const [query, field] of [["from=2027-02-30", "from"], ["to=2099-13-45", "to"], ["status=lost", "status"], ["format=xlsx", "format"]]) {
+      const res = await paymentsRoute(new NextRequest(`http://localhost/api/payments?${query}`), undefined);
+      expect(res.status, query).toBe(400);
+      expect((await res.json()).field, query).toBe(field);
+    }
+    expect((await paymentsRoute(new NextRequest("http://localhost/api/payments?from=2027-02-28&to=2027-03-31"), undefined)).status).toBe(200);
+  });
+
+  it("waiving twice, or paying a waived deposit, is a 409; a visit without a deposit is a 409, not a 404", async () => {
+    const { visit } = await bookOne();
+    setSessionUser(asUser(t.staff.reception));
+    const path = `/api/appointments/${visit.id}/deposit/waive`;
+    expect((await post(waiveRoute, path, visit.id, { reason: "x" })).status).toBe(400);
+    expect((await depositOf(visit.id))!.status).toBe("due");
+    const first = await post(waiveRoute, path, visit.id, { reason: "Agreed with the clinic manager" });
+    expect(first.status).toBe(200);
+    expect(await first.json()).toEqual({ amountCents: 20_000, currency: "CAD", status: "waived" });
+    expect((await post(waiveRoute, path, visit.id, { reason: "Again" })).status).toBe(409);
+    expect((await post(depositRoute, `/api/appointments/${visit.id}/deposit`, visit.id)).status).toBe(409);
+    expect(await auditCount(visit.id, "deposit.waived")).toBe(1);
+
+    // A visit booked before the clinic asked deposits has none.
+    const { visit: plain } = await bookOne();
+    await sequelize.query(`DELETE FROM deposits WHERE appointment_id = $1`, { bind: [plain.id] });
+    const none = await post(waiveRoute, `/api/appointments/${plain.id}/deposit/waive`, plain.id, { reason: "Agreed with the clinic manager" });
+    expect(none.status).toBe(409);
+    expect((await none.json()).error).toMatch(/no deposit/);
+    expect((await post(depositRoute, `/api/appointments/${plain.id}/deposit`, plain.id)).status).toBe(409);
+  });
+});

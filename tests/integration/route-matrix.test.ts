@@ -34,6 +34,9 @@ async function fill(f: Fill, w: World): Promise<string> {
     case "ownerPatient": return w.owner.patient.id;
     case "patient": return w.make.patient();
     case "staffMember": return w.make.staffMember();
+    // Payments
+    case "dueDepositVisit": return w.money.dueDepositVisit();
+    case "paidDepositVisit": return w.money.paidDepositVisit();
   }
 }
 

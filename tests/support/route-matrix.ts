@@ -20,7 +20,9 @@ import { pdfDocument } from "./sample-files";
 
 export type Fill =
   | "visit" | "requestedVisit" | "consent" | "document" | "outage" | "proposal" | "token"
-  | "ownerPatient" | "patient" | "staffMember" | { literal: string };
+  | "ownerPatient" | "patient" | "staffMember" | { literal: string }
+  // Payments: a confirmed visit of the owner with a deposit due, or one paid through the payment service.
+  | "dueDepositVisit" | "paidDepositVisit";
 export type Ids = Record<string, string>;
 export type Body = ((world: World, ids: Ids) => unknown) | { form: (world: World, ids: Ids) => FormData } | Record<string, unknown>;
 
@@ -140,6 +142,23 @@ export const ROUTE_MATRIX: MatrixRow[] = [
   // ——— reminders by e-mail link (the signed token is the authority, not the session) ———
   { method: "GET", route: "/api/reminders/[token]", params: { token: "token" }, expect: "303 303 303 303 303 303 303" },
   { method: "POST", route: "/api/reminders/[token]", params: { token: "token" }, body: { enabled: false }, expect: "200 200 200 200 200 200 200" },
+
+  // Payments
+  { method: "GET", route: "/api/appointments/[id]", params: { id: "visit" }, expect: "401 200 404 200 200 200 404" },
+  // Each allowed caller opens a real checkout on the local payment fake for a fresh due deposit.
+  { method: "POST", route: "/api/appointments/[id]/deposit", params: { id: "dueDepositVisit" }, expect: "401 200 404 200 403 200 404" },
+  { method: "POST", route: "/api/appointments/[id]/deposit/waive", params: { id: "dueDepositVisit" }, body: { reason: "Agreed with the clinic manager" }, expect: "401 403 403 200 403 200 404" },
+  { method: "POST", route: "/api/appointments/[id]/desk-payments", params: { id: "visit" }, body: { method: "cash", amount: "50.00" }, expect: "401 403 403 201 403 201 404" },
+  { method: "GET", route: "/api/appointments/[id]/receipt", params: { id: "paidDepositVisit" }, expect: "401 200 404 200 200 200 404" },
+  // No Stripe-Signature header: the signature, not the session, decides, so every caller gets 400.
+  // Signed events are walked in tests/integration/payments.test.ts.
+  { method: "POST", route: "/api/payments/webhook", body: { id: "evt_matrix", object: "event", type: "checkout.session.completed" }, expect: "400 400 400 400 400 400 400" },
+  { method: "GET", route: "/api/payments", query: "?format=csv&from=2020-01-01", expect: "401 403 403 200 200 200 200" },
+  {
+    method: "PUT", route: "/api/proposals/[id]/plan-estimate", params: { id: "proposal" },
+    body: { coveragePercent: 50, deductibleRemaining: "50", annualMaxRemaining: "1500" },
+    expect: "401 200 404 200 200 200 404",
+  },
 ];
 
 function fileForm(fields: Record<string, string>, bytes: Uint8Array, name: string, type: string): FormData {

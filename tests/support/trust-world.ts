@@ -101,10 +101,24 @@ export async function createWorld() {
     return (await createUser(home.clinic.id, "reception", "Matrix Reception")).id;
   }
 
+  // Payments: a deposit row on a fresh confirmed visit of the owner, as booking asks it (due) or as
+  // the payment service's webhook leaves it (paid), so deposit and receipt routes have something to act on.
+  async function depositVisit(status: "due" | "paid"): Promise<string> {
+    const v = await visit("confirmed");
+    await sequelize.query(
+      `INSERT INTO deposits (clinic_id, appointment_id, amount_cents, currency, status, payment_intent_id, paid_at)
+       VALUES ($1, $2, 20000, $3, $4, $5, $6)`,
+      { bind: [home.clinic.id, v.id, home.clinic.currency, status, status === "paid" ? `pi_world_${v.id}` : null, status === "paid" ? new Date() : null] },
+    );
+    return v.id;
+  }
+
   return { home, away, owner, other, proposal, users, make: { visit, consent, document, outage, patient, staffMember, token: async () => {
     const v = await visit("confirmed");
     return reminderToken(v.id, v.startsAt);
-  } } };
+  } },
+  // Payments
+  money: { dueDepositVisit: () => depositVisit("due"), paidDepositVisit: () => depositVisit("paid") } };
 }
 
 export function actAs(world: World, actor: Actor) {
@@ -154,6 +168,10 @@ export async function snapshot(world: World): Promise<Record<string, string>> {
     patient_invitations: "SELECT t.* FROM patient_invitations t WHERE t.clinic_id IN (:clinics)",
     email_changes: "SELECT t.* FROM email_changes t JOIN patients p ON p.id = t.patient_id WHERE p.clinic_id IN (:clinics)",
     audit_events: "SELECT t.* FROM audit_events t WHERE t.clinic_id IN (:clinics) AND t.action NOT IN (:reads)",
+    // Payments
+    deposits: "SELECT t.* FROM deposits t WHERE t.clinic_id IN (:clinics)",
+    desk_payments: "SELECT t.* FROM desk_payments t WHERE t.clinic_id IN (:clinics)",
+    plan_estimates: "SELECT t.* FROM plan_estimates t JOIN proposals p ON p.id = t.proposal_id WHERE p.clinic_id IN (:clinics)",
   };
   const out: Record<string, string> = {};
   for (const [name, sql] of Object.entries(tables)) {

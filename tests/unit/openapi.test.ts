@@ -71,3 +71,28 @@ describe("documentation stays inside the repository", () => {
     expect(readFileSync(path.join(root, "README.md"), "utf8")).toMatch(/\/api\/openapi\.json/);
   });
 });
+
+// Payments
+describe("payments operations", () => {
+  it("take their bodies and query from the payment forms' own schemas", async () => {
+    const { DESK_METHODS } = await import("@/lib/domain/payment-schemas");
+    type Op = { requestBody?: { required: boolean; content: Record<string, { schema: { properties: Record<string, { enum?: string[] }>; required?: string[] } }> }; parameters?: { name: string; in: string; required: boolean }[]; responses: Record<string, unknown> };
+    const op = (path: string, method: string) => (doc.paths[path] as Record<string, Op>)[method];
+    const desk = op("/api/appointments/{id}/desk-payments", "post").requestBody!;
+    expect(desk.required).toBe(true);
+    expect(desk.content["application/json"].schema.properties.method.enum).toEqual([...DESK_METHODS]);
+    expect(desk.content["application/json"].schema.required).toEqual(expect.arrayContaining(["method", "amount"]));
+    expect(Object.keys(op("/api/proposals/{id}/plan-estimate", "put").requestBody!.content["application/json"].schema.properties)).toEqual(
+      expect.arrayContaining(["coveragePercent", "deductibleRemaining", "annualMaxRemaining", "preauthReference"]),
+    );
+    expect(op("/api/appointments/{id}/deposit/waive", "post").requestBody!.content["application/json"].schema.required).toEqual(["reason"]);
+    const query = op("/api/payments", "get").parameters!.filter((p) => p.in === "query");
+    expect(query.map((p) => p.name).sort()).toEqual(["format", "from", "status", "to"]);
+    expect(query.every((p) => !p.required)).toBe(true);
+    // Only the checkout talks to the payment service, so only it documents a 502.
+    expect(Object.keys(op("/api/appointments/{id}/deposit", "post").responses)).toContain("502");
+    expect(Object.keys(op("/api/appointments/{id}/deposit/waive", "post").responses)).not.toContain("502");
+    // The webhook is called by the payment service, which has no session.
+    expect((doc.paths["/api/payments/webhook"] as Record<string, { security?: unknown[] }>).post.security).toEqual([]);
+  });
+});

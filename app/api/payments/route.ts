@@ -2,14 +2,14 @@ import { NextResponse } from "next/server";
 import { requireUser, STAFF_ROLES } from "@/lib/auth/session";
 import { listPayments, paymentsCsv } from "@/lib/data/payments";
 import { paymentsQuerySchema } from "@/lib/domain/payment-schemas";
-import { route } from "@/lib/server/api";
+import { parseQuery, route } from "@/lib/server/api";
 
 export const dynamic = "force-dynamic";
 
 /** The clinic's deposits for staff: `?status=&from=&to=`, `&format=csv` for a spreadsheet. */
 export const GET = route(async (req) => {
   const user = await requireUser(STAFF_ROLES);
-  const q = paymentsQuerySchema.parse(Object.fromEntries(req.nextUrl.searchParams));
+  const q = parseQuery(req, paymentsQuerySchema);
   const list = await listPayments({ user, status: q.status, from: q.from, to: q.to });
   if (q.format === "csv") {
     return new Response(paymentsCsv(list.rows), {

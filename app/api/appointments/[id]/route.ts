@@ -2,14 +2,14 @@ import { NextResponse } from "next/server";
 import { requireUser } from "@/lib/auth/session";
 import { getVisitMoney } from "@/lib/data/payments";
 import { isoInZone } from "@/lib/domain/time-zone";
-import { route } from "@/lib/server/api";
+import { idParams, route } from "@/lib/server/api";
 
 export const dynamic = "force-dynamic";
 
 /** One visit for its patient or the clinic's staff, with its money: fee, plan estimate, deposit, balance. */
 export const GET = route<{ params: Promise<{ id: string }> }>(async (_req, { params }) => {
   const user = await requireUser();
-  const { id } = await params;
+  const { id } = await idParams(params, "id");
   const { visit, clinic, money } = await getVisitMoney({ user }, id);
   return NextResponse.json({
     id: visit.id,
