@@ -4,17 +4,15 @@
 import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Appointment, Consent, ConsentPdf, MailOutbox, Patient } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { openConsentForPatient, signConsent, staffConsentView } from "@/lib/data/consents";
 import { sha256Hex } from "@/lib/domain/consent-hash";
 import { QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
 import { SECTION_KEYS } from "@/lib/domain/consent-text";
 import { composeMail, loadMessage } from "@/lib/mail/compose";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { sessionOf } from "../support/session";
 
 const UA = "ConsentTestFr/1.0";
-const sessionOf = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
 
 async function pdfText(bytes: Buffer): Promise<string> {
   const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");

@@ -1,16 +1,15 @@
 // Staff record a withdrawal the patient made by phone, in person or in writing: who, how, when; audited.
 import { beforeAll, describe, expect, it } from "vitest";
 import { Appointment, AuditEvent, Consent, ConsentTemplate } from "@/db/models";
-import type { SessionUser } from "@/lib/auth/session";
 import { recordWithdrawalForPatient } from "@/lib/data/consent-withdrawal";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, type TestClinic } from "../support/fixtures";
 import { createVisit } from "../support/mail";
+import { sessionOf } from "../support/session";
 
 const HOUR = 3_600_000;
 let t: TestClinic;
-const asUser = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const asUser = sessionOf;
 
 async function rejection(p: Promise<unknown>) {
   return p.then(() => null, (e) => e);

@@ -10,13 +10,13 @@ import { recordLot } from "@/lib/data/lots";
 import { loadMillPrep, markBlockLoaded, recordVisitBlock } from "@/lib/data/mill-prep";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { sessionOf } from "../support/session";
 
 const now = new Date("2027-03-01T12:00:00Z");
 let t: TestClinic;
 let dentist: SessionUser;
 let reception: SessionUser;
-const asUser = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const asUser = sessionOf;
 
 beforeAll(async () => {
   t = await createTestClinic({ chairs: 2, mills: 1, furnaces: 1 });

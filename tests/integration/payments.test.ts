@@ -17,6 +17,7 @@ import { depositOf, startCheckout } from "@/lib/payments/deposits";
 import { releaseUnpaidHolds } from "@/lib/payments/release";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
 import { setSessionUser } from "../support/session";
+import { sessionOf } from "../support/session";
 
 vi.mock("@/lib/auth/session", async () => (await import("../support/session")).fakeSessionModule());
 
@@ -52,7 +53,7 @@ function nextStart() {
 // The SDK as the app configures it, against the fake named by STRIPE_API_URL.
 const sdk = payments();
 type Person = { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null };
-const asUser = (u: Person): SessionUser => ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const asUser = sessionOf;
 
 beforeAll(async () => {
   t = await createTestClinic({ chairs: 2, mills: 1, furnaces: 1 });

@@ -10,13 +10,13 @@ import { materialEstimates } from "@/lib/data/materials";
 import { deleteFurnaceProgramme, getPlanSettings, saveFiringAssignments, saveFurnaceProgramme, saveStageOrder } from "@/lib/data/plan-settings";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { sessionOf } from "../support/session";
 
 const now = new Date("2027-03-01T12:00:00Z");
 let t: TestClinic;
 let admin: SessionUser;
 let reception: SessionUser;
-const asUser = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const asUser = sessionOf;
 
 async function rejection(p: Promise<unknown>): Promise<AppError> {
   const err = await p.then(() => null, (e) => e);
