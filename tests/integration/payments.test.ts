@@ -52,7 +52,6 @@ function nextStart() {
 }
 // The SDK as the app configures it, against the fake named by STRIPE_API_URL.
 const sdk = payments();
-type Person = { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null };
 const asUser = sessionOf;
 
 beforeAll(async () => {
