@@ -8,7 +8,6 @@ import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { AuditEvent, Clinic, Material, ProposalMaterial, Reservation, sequelize } from "@/db/models";
 import { proposalSchema } from "@/lib/booking/schemas";
 import { createProposal } from "@/lib/data/proposals";
-import type { SessionUser } from "@/lib/auth/session";
 import { bookVisit } from "@/lib/booking/book";
 import { searchSlots } from "@/lib/booking/search";
 import { cancelVisit, declineVisit } from "@/lib/booking/transitions";
