@@ -323,3 +323,11 @@ export async function startStorage({ port, name = "storage", keys }) {
     },
   });
 }
+
+/**
+ * The command that serves the built app on `port`: every script and test that starts an app
+ * instance asks here, so a different server entry point is a change in this one place.
+ */
+export function appServerCommand(port, host = "127.0.0.1") {
+  return [bin("next"), ["start", "-p", String(port), "-H", host]];
+}
