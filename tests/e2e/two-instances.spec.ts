@@ -18,7 +18,7 @@ let appB: ChildProcess | undefined;
 let workerB: ChildProcess | undefined;
 let workerBLog = "";
 
-function start(cmd: string, args: string[], env: NodeJS.ProcessEnv) {
+function start(cmd: string, args: string[], env: Record<string, string>) {
   return spawn(cmd, args, { cwd: root, env: { ...process.env, ...env }, stdio: ["ignore", "pipe", "pipe"], detached: true });
 }
 
