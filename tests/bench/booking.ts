@@ -8,7 +8,7 @@ import { writeSchedule } from "@/lib/booking/schedule";
 import { searchSlots } from "@/lib/booking/search";
 import { findSlots } from "@/lib/domain/availability";
 import { addDays, localDate, zonedTime } from "@/lib/domain/time-zone";
-import { benchEnv, freshDatabase, ms, run, sessionCookie, startApp, stats, stopApp } from "./support";
+import { benchEnv, freshDatabase, ms, run, serverRssMb, sessionCookie, startApp, stats, stopApp } from "./support";
 
 const DB = "cuspal_bench";
 const PORT = 3290;
@@ -133,6 +133,8 @@ export async function run300(): Promise<Record<string, string | number>> {
     }));
     const count = (s: number) => statuses.filter((x) => x === s).length;
     const s = stats(latencies);
+    // Resident memory of the app server after the availability and booking load (target ≤ 300 MB).
+    const rss = serverRssMb(app.pid!);
     return {
       "existing visits": placed,
       "availability: slots found (14 days)": slotCount,
@@ -146,6 +148,7 @@ export async function run300(): Promise<Record<string, string | number>> {
       "50 concurrent bookings: 5xx": statuses.filter((x) => x >= 500).length,
       "50 concurrent bookings: p95 latency": ms(s.p95),
       "50 concurrent bookings: max latency": ms(s.max),
+      "app server resident memory after the load (target ≤ 300 MB)": rss === null ? "not readable" : `${rss.toFixed(0)} MB${rss <= 300 ? "" : "  ← over target"}`,
     };
   } finally {
     stopApp(app);

@@ -1,6 +1,6 @@
 // Benchmark plumbing: a private database, a private app server, and signed session cookies.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import pg from "pg";
 import { encode } from "next-auth/jwt";
@@ -76,3 +76,32 @@ export function stats(samples: number[]) {
 }
 
 export const ms = (n: number) => `${n.toFixed(1)} ms`;
+
+/** Resident memory (MB) of the `next-server` process under `pid` (the `next start` child), read from /proc. */
+export function serverRssMb(pid: number): number | null {
+  const children = (p: number): number[] => {
+    try {
+      return readFileSync(`/proc/${p}/task/${p}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number);
+    } catch {
+      return [];
+    }
+  };
+  const tree = [pid];
+  for (let i = 0; i < tree.length; i++) tree.push(...children(tree[i]));
+  const named = tree.filter((p) => {
+    try {
+      return /next-server/.test(readFileSync(`/proc/${p}/cmdline`, "utf8")) || /next-server/.test(readFileSync(`/proc/${p}/comm`, "utf8"));
+    } catch {
+      return false;
+    }
+  });
+  const rss = (named.length ? named : tree).map((p) => {
+    try {
+      const kb = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${p}/status`, "utf8"))?.[1];
+      return kb ? Number(kb) / 1024 : 0;
+    } catch {
+      return 0;
+    }
+  });
+  return rss.length ? Math.max(...rss) : null;
+}
