@@ -1,10 +1,11 @@
 // Two app instances and two mail workers on one PostgreSQL and one object store behave as one:
 // a session from one instance works on the other, a booking race split over both has one winner,
 // a document uploaded through one downloads through the other, and 1,000 reminders drained by two
-// workers arrive once each. The second instance runs on PORT + 1 with the same environment.
+// workers arrive once each. The second instance and worker come from `npm run serve -- --worker`
+// on PORT + 1, with the same environment.
+import path from "node:path";
 import { spawn, type ChildProcess } from "node:child_process";
 import { expect, test } from "@playwright/test";
-import { appServerCommand, bin, root } from "../../scripts/lib.mjs";
 import { pdfDocument } from "../support/sample-files";
 import { query, signIn } from "./support";
 
@@ -14,13 +15,10 @@ const A = `http://localhost:${portA}`;
 const B = `http://localhost:${portB}`;
 const REMINDERS = 1000;
 
-let appB: ChildProcess | undefined;
-let workerB: ChildProcess | undefined;
-let workerBLog = "";
+const root = path.resolve(import.meta.dirname, "../..");
 
-function start(cmd: string, args: string[], env: Record<string, string>) {
-  return spawn(cmd, args, { cwd: root, env: { ...process.env, ...env }, stdio: ["ignore", "pipe", "pipe"], detached: true });
-}
+let serveB: ChildProcess | undefined;
+let logB = "";
 
 function stop(child: ChildProcess | undefined) {
   if (child?.pid && child.exitCode === null) {
@@ -32,21 +30,19 @@ test.describe.configure({ mode: "serial" });
 
 test.beforeAll(async () => {
   test.setTimeout(90_000);
-  const [cmd, args] = appServerCommand(portB, "127.0.0.1");
-  appB = start(cmd, args, { NODE_ENV: "production", PORT: String(portB) });
-  workerB = start(bin("tsx"), ["lib/jobs/worker-main.ts"], { WORKER_POLL_MS: "200" });
-  workerB.stdout!.on("data", (d: Buffer) => (workerBLog += d.toString()));
+  serveB = spawn(process.execPath, ["scripts/serve.mjs", "--worker"], {
+    cwd: root, env: { ...process.env, PORT: String(portB), HOST: "127.0.0.1", WORKER_POLL_MS: "200" }, stdio: ["ignore", "pipe", "pipe"], detached: true,
+  });
+  serveB.stdout!.on("data", (d: Buffer) => (logB += d.toString()));
+  serveB.stderr!.on("data", (d: Buffer) => (logB += d.toString()));
   for (let i = 0; i < 300; i++) {
     if (await fetch(`${B}/api/health`).then((r) => r.ok, () => false)) return;
     await new Promise((r) => setTimeout(r, 200));
   }
-  throw new Error(`The second instance did not answer on port ${portB}.`);
+  throw new Error(`The second instance did not answer on port ${portB}:\n${logB}`);
 });
 
-test.afterAll(() => {
-  stop(appB);
-  stop(workerB);
-});
+test.afterAll(() => stop(serveB));
 
 test("a session signed in on one instance works on the other", async ({ page }) => {
   await signIn(page, "patient@cuspal.test");
@@ -132,7 +128,7 @@ test("1,000 reminders drained by two workers arrive once each", async ({ request
   expect(recipients.size, "every reminder arrived").toBe(REMINDERS);
   expect(mine.length, "no reminder arrived twice").toBe(REMINDERS);
   // Both workers took part: the second one reports what it sent.
-  const sentByB = [...workerBLog.matchAll(/sent (\d+)/g)].reduce((sum, m) => sum + Number(m[1]), 0);
+  const sentByB = [...logB.matchAll(/sent (\d+)/g)].reduce((sum, m) => sum + Number(m[1]), 0);
   expect(sentByB).toBeGreaterThan(0);
   expect(sentByB).toBeLessThan(REMINDERS);
 });
