@@ -3,7 +3,6 @@
 // a document uploaded through one downloads through the other, and 1,000 reminders drained by two
 // workers arrive once each. The second instance and worker come from `npm run serve -- --worker`
 // on PORT + 1, with the same environment.
-import path from "node:path";
 import { spawn, type ChildProcess } from "node:child_process";
 import { expect, test } from "@playwright/test";
 import { pdfDocument } from "../support/sample-files";
@@ -15,7 +14,8 @@ const A = `http://localhost:${portA}`;
 const B = `http://localhost:${portB}`;
 const REMINDERS = 1000;
 
-const root = path.resolve(import.meta.dirname, "../..");
+// Playwright runs from the repository root.
+const root = process.cwd();
 
 let serveB: ChildProcess | undefined;
 let logB = "";
