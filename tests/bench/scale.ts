@@ -14,7 +14,8 @@ const CLINICS = 20;
 const PATIENTS = 50_000;
 const VISITS = 200_000;
 const ZONE = "America/Toronto";
-// Each clinic: 3 chairs, visits of 60 minutes on the hour from 07:00 to 16:00, the chairs staggered by
+// Each clinic: open 07:00–21:00; 3 chairs, visits of 60 minutes on the hour from 07:00 to 16:00 (the
+// evenings stay free for availability to find), the chairs staggered by
 // 20 minutes so one mill's 20-minute window per visit never overlaps another's (the exclusion
 // constraint holds); 30 visits a clinic a day, 10,000 a clinic over about 333 days around today.
 const PER_CLINIC = VISITS / CLINICS;
@@ -45,7 +46,7 @@ async function seed(): Promise<number> {
       SELECT c.id, k.kind, k.name FROM sc c CROSS JOIN (VALUES ('chair', 'Chair 1'), ('chair', 'Chair 2'), ('chair', 'Chair 3'),
         ('mill', 'Mill 1'), ('mill', 'Mill 2'), ('furnace', 'Furnace 1')) AS k(kind, name);
     INSERT INTO opening_hours (clinic_id, weekday, opens, closes)
-      SELECT c.id, w, '07:00', '20:00' FROM sc c CROSS JOIN generate_series(0, 6) AS w;
+      SELECT c.id, w, '07:00', '21:00' FROM sc c CROSS JOIN generate_series(0, 6) AS w;
     INSERT INTO users (email, name, role, clinic_id)
       SELECT 'scale-dentist-' || c.n || '-' || d || '@bench.example', 'Group dentist ' || c.n || '.' || d, 'dentist', c.id
         FROM sc c CROSS JOIN generate_series(0, ${CHAIRS - 1}) AS d;
