@@ -245,7 +245,10 @@ export async function run(): Promise<Record<string, string | number>> {
     figures[`${c.name}: p95 (target ≤ ${TARGET.p95} ms)`] = `${ms(r.p95)}  ${verdict(r)}`;
     const plan = await explain(r.captured);
     figures[`${c.name}: sequential scans of large tables`] = plan.seqScans.length ? plan.seqScans.join(", ") : "none";
-    plans.push(`\n${c.name}: slowest query's plan (${plan.ms.toFixed(1)} ms in EXPLAIN ANALYZE), top lines\n  ${plan.plan.slice(0, 12).join("\n  ")}`);
+    // The top of the plan, then every table access below it (which index, or a sequential scan).
+    const scans = plan.plan.slice(4).filter((l) => /Scan/.test(l)).map((l) => l.trim());
+    const lines = [...plan.plan.slice(0, 4), ...(scans.length ? ["…table accesses:", ...scans] : [])].map((l) => (l.length > 170 ? `${l.slice(0, 170)}…` : l));
+    plans.push(`\n${c.name}: slowest query's plan (${plan.ms.toFixed(1)} ms in EXPLAIN ANALYZE)\n  ${lines.join("\n  ")}`);
   }
   console.log(plans.join("\n"));
   return figures;
