@@ -81,6 +81,12 @@ const pages = [
   { name: "proposal", url: `${base}/patient/proposals/${proposals[0].id}`, signedIn: true },
 ];
 
+// A signed-in page must answer as the patient, not send Lighthouse to the sign-in page.
+for (const p of pages.filter((x) => x.signedIn)) {
+  const res = await fetch(p.url, { headers: { cookie }, redirect: "manual" });
+  if (res.status !== 200) fail(`${p.name} answered ${res.status} ${res.headers.get("location") ?? ""} with the patient's session.`);
+}
+
 const { default: lighthouse } = await import("lighthouse");
 const chromeLauncher = await import("chrome-launcher");
 const rows = [];
