@@ -78,13 +78,14 @@ const pages = [
   { name: "/", url: `${base}/`, signedIn: false },
   { name: "/sign-in", url: `${base}/sign-in`, signedIn: false },
   { name: "/patient", url: `${base}/patient`, signedIn: true },
-  { name: "proposal", url: `${base}/patient/proposals/${proposals[0].id}`, signedIn: true },
+  // A proposal still open to booking (one with a visit redirects to that visit).
+  { name: "proposal", url: `${base}/patient/proposals/${(proposals.find((p) => p.status === "open" && !p.activeVisit) ?? proposals[0]).id}`, signedIn: true },
 ];
 
 // A signed-in page must answer as the patient, not send Lighthouse to the sign-in page.
 for (const p of pages.filter((x) => x.signedIn)) {
-  const res = await fetch(p.url, { headers: { cookie }, redirect: "manual" });
-  if (res.status !== 200) fail(`${p.name} answered ${res.status} ${res.headers.get("location") ?? ""} with the patient's session.`);
+  const res = await fetch(p.url, { headers: { cookie } });
+  if (res.status !== 200 || new URL(res.url).pathname.startsWith("/sign-in")) fail(`${p.name} answered ${res.status} at ${res.url} with the patient's session.`);
 }
 
 const { default: lighthouse } = await import("lighthouse");
