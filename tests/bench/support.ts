@@ -13,7 +13,13 @@ export function benchEnv(db: string, port: number) {
   return {
     ...process.env,
     DATABASE_URL: `${pgBase}/${db}`,
-    NEXTAUTH_SECRET: "bench-secret-0123456789abcdef",
+    // The built app runs in production mode, which wants a long secret, storage keys that are not
+    // the storage fake's published ones, and a seal certificate configured (none is used here).
+    NEXTAUTH_SECRET: "bench-secret-0123456789abcdef-0123456789",
+    S3_ACCESS_KEY_ID: process.env.S3_ACCESS_KEY_ID ?? "bench-local",
+    S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? "bench-local-secret",
+    SEAL_CERT_PATH: process.env.SEAL_CERT_PATH ?? path.join(root, ".data", "seal", "clinic-seal.p12"),
+    SEAL_CERT_PASSWORD: process.env.SEAL_CERT_PASSWORD ?? "bench-unused",
     NEXTAUTH_URL: `http://localhost:${port}`,
     APP_URL: `http://localhost:${port}`,
     NEXT_TELEMETRY_DISABLED: "1",
