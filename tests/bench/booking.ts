@@ -11,7 +11,8 @@ import { addDays, localDate, zonedTime } from "@/lib/domain/time-zone";
 import { benchEnv, freshDatabase, ms, run, serverRssMb, sessionCookie, startApp, stats, stopApp } from "./support";
 
 const DB = "cuspal_bench";
-const PORT = 3290;
+// BENCH_PORT moves the app server, for a machine where 3290 is taken.
+const PORT = Number(process.env.BENCH_PORT ?? 3290);
 const MIN = 60_000;
 
 async function seedBenchClinic() {
