@@ -1,7 +1,7 @@
 // `npm run demo`: everything a fresh machine needs to show Cuspal with its invented demo clinic.
 import { spawn } from "node:child_process";
 import {
-  appEnv, bin, ensureDatabases, ensureDependencies, ensurePostgres, mustRun, root, say,
+  appEnv, appServerCommand, bin, ensureDatabases, ensureDependencies, ensurePostgres, mustRun, root, say,
   startMailCatcher, startPaymentFake, startService, startStorage,
 } from "./lib.mjs";
 
@@ -42,7 +42,8 @@ Demo accounts (invented people), password: cuspal-demo
 Stop the app with Ctrl-C, then \`npm run stop\` stops PostgreSQL, the mail catcher, the storage fake, the payment fake and the worker.
 `);
 
-const app = spawn(process.execPath, ["scripts/serve.mjs", "-p", String(appPort), "-H", "0.0.0.0"], { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "inherit" });
+const [appCmd, appArgs] = appServerCommand(appPort, "0.0.0.0");
+const app = spawn(appCmd, appArgs, { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "inherit" });
 const forward = (sig) => () => app.kill(sig);
 process.on("SIGINT", forward("SIGINT"));
 process.on("SIGTERM", forward("SIGTERM"));

@@ -340,3 +340,11 @@ export async function startPaymentFake({ port, env, name = "payment-fake" }) {
     },
   });
 }
+
+/**
+ * The command that serves the built app on `port` (scripts/server.mjs, which records the real
+ * client address for the app): every script and test that starts an app instance asks here.
+ */
+export function appServerCommand(port, host = "127.0.0.1") {
+  return [process.execPath, [path.join(root, "scripts", "server.mjs"), "-p", String(port), "-H", host]];
+}

@@ -1,32 +1,41 @@
-// Serves the built app (what `npm start` runs). Next's own `next start` only fills in
-// X-Forwarded-For when the request lacks it, so a client could name any address; here the
-// socket's address is always appended as the last hop, and lib/server/client-ip.ts walks the
-// header from the right, believing earlier hops only from the proxies listed in TRUSTED_PROXIES.
-import { createServer } from "node:http";
-import next from "next";
+// `npm run serve`: one more app instance against services that already run (PostgreSQL, object
+// storage, SMTP), for example a second instance beside `npm run demo`. It neither builds nor
+// migrates nor seeds: run `npm run build` (or the demo) first. PORT chooses the port (default 3001).
+// Every setting comes from the environment when set, else from the same local secrets in .data as
+// the demo, so a session signed in on one instance is valid on the other.
+// `npm run serve -- --worker` also starts a mail worker beside it.
+import { spawn } from "node:child_process";
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { appEnv, appServerCommand, bin, fail, root, say } from "./lib.mjs";
 
-const port = Number(process.env.PORT ?? 3000);
-const args = process.argv.slice(2);
-const flag = (name) => {
-  const i = args.indexOf(name);
-  return i >= 0 ? args[i + 1] : undefined;
+const appPort = Number(process.env.PORT ?? 3001);
+if (!Number.isInteger(appPort) || appPort <= 0 || appPort > 65535) fail(`PORT must be a port number, not ${process.env.PORT}.`);
+const withWorker = process.argv.slice(2).includes("--worker");
+
+const env = {
+  ...process.env,
+  ...appEnv({ db: "cuspal", appPort, smtpPort: 1025, mailWebPort: 1080, s3Port: 4569, paymentPort: 12111 }),
+  NODE_ENV: "production",
 };
-const listenPort = Number(flag("-p") ?? port);
-// Like `next start`: every interface unless -H names one.
-const listenHost = flag("-H");
+const distDir = process.env.NEXT_DIST_DIR || ".next";
+if (!existsSync(path.join(root, distDir, "BUILD_ID"))) {
+  fail(`No build in ${distDir}: run \`npm run build\` (or \`npm run demo\` once) before \`npm run serve\`.`);
+}
 
-const app = next({ dev: false, hostname: listenHost ?? "localhost", port: listenPort });
-await app.prepare();
-const handle = app.getRequestHandler();
+const children = [];
+const [cmd, args] = appServerCommand(appPort, process.env.HOST ?? "0.0.0.0");
+children.push(spawn(cmd, args, { cwd: root, env, stdio: "inherit" }));
+if (withWorker) children.push(spawn(bin("tsx"), ["lib/jobs/worker-main.ts"], { cwd: root, env, stdio: "inherit" }));
+say(`Serving Cuspal on port ${appPort}${withWorker ? " with a mail worker" : ""} (database ${new URL(env.DATABASE_URL).host}${new URL(env.DATABASE_URL).pathname}).`);
 
-createServer((req, res) => {
-  const peer = req.socket.remoteAddress ?? "unknown";
-  const incoming = req.headers["x-forwarded-for"];
-  const chain = Array.isArray(incoming) ? incoming.join(", ") : incoming;
-  req.headers["x-forwarded-for"] = chain ? `${chain}, ${peer}` : peer;
-  // X-Real-IP is not ours to read; drop it so nothing downstream mistakes it for the client.
-  delete req.headers["x-real-ip"];
-  handle(req, res);
-}).listen(listenPort, listenHost, () => {
-  console.log(`Cuspal is listening on port ${listenPort}`);
-});
+const forward = (sig) => () => children.forEach((c) => c.kill(sig));
+process.on("SIGINT", forward("SIGINT"));
+process.on("SIGTERM", forward("SIGTERM"));
+// When one child ends, end the others and leave with its code.
+for (const c of children) {
+  c.on("exit", (code) => {
+    children.forEach((o) => o !== c && o.kill("SIGTERM"));
+    process.exit(code ?? 0);
+  });
+}

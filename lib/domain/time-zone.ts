@@ -31,8 +31,27 @@ export function addDays(date: string, days: number): string {
 }
 
 /** ISO 8601 with the zone's offset at that instant, e.g. 2027-03-15T08:00:00-04:00. */
+// One formatter per zone, kept: building an Intl.DateTimeFormat costs far more than formatting with
+// one, and the day board formats several hundred instants per request.
+const wallClock = new Map<string, Intl.DateTimeFormat>();
+
 export function isoInZone(instant: Date, zone: string): string {
-  return dayjs(instant).tz(zone).format("YYYY-MM-DDTHH:mm:ssZ");
+  let format = wallClock.get(zone);
+  if (!format) {
+    format = new Intl.DateTimeFormat("en-US", {
+      timeZone: zone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit",
+    });
+    wallClock.set(zone, format);
+  }
+  const part: Record<string, string> = {};
+  for (const p of format.formatToParts(instant)) part[p.type] = p.value;
+  const [y, mo, d, h, mi, s] = [part.year, part.month, part.day, part.hour, part.minute, part.second].map(Number);
+  // The offset is the wall clock read as UTC minus the instant (to the whole second, as displayed).
+  const offsetMinutes = Math.round((Date.UTC(y, mo - 1, d, h, mi, s) - Math.floor(instant.getTime() / 1000) * 1000) / 60_000);
+  const sign = offsetMinutes < 0 ? "-" : "+";
+  const abs = Math.abs(offsetMinutes);
+  const two = (n: number) => String(n).padStart(2, "0");
+  return `${String(y).padStart(4, "0")}-${two(mo)}-${two(d)}T${two(h)}:${two(mi)}:${two(s)}${sign}${two(Math.floor(abs / 60))}:${two(abs % 60)}`;
 }
 
 export function isValidZone(zone: string): boolean {

@@ -1,5 +1,5 @@
 // The client's IP address, for sign-in throttling and audit events. The app is served by
-// scripts/serve.mjs, which appends the socket's address to X-Forwarded-For as the last hop.
+// scripts/server.mjs, which appends the socket's address to X-Forwarded-For as the last hop.
 // Walking from the right, hops added by the proxies listed in TRUSTED_PROXIES (IPs or CIDRs,
 // comma-separated; empty by default) are skipped; the first untrusted hop is the client. With
 // no trusted proxies that is the socket address, whatever the client wrote into the header.

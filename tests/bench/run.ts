@@ -17,6 +17,7 @@ async function benches(): Promise<Bench[]> {
   }
   list.push({ name: "Sealed consent PDF and health during signing", run: (await import("./consent-pdf")).run });
   list.push({ name: "Patient search", run: (await import("./patients")).run });
+  list.push({ name: "Clinic-group scale", run: (await import("./scale")).run });
   // `npm run bench -- search` runs only the benchmarks whose name contains the word.
   const only = process.argv.slice(2).join(" ").toLowerCase();
   return only ? list.filter((b) => b.name.toLowerCase().includes(only)) : list;

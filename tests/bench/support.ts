@@ -1,6 +1,6 @@
 // Benchmark plumbing: a private database, a private app server, and signed session cookies.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import pg from "pg";
 import { encode } from "next-auth/jwt";
@@ -13,7 +13,13 @@ export function benchEnv(db: string, port: number) {
   return {
     ...process.env,
     DATABASE_URL: `${pgBase}/${db}`,
-    NEXTAUTH_SECRET: "bench-secret-0123456789abcdef",
+    // The built app runs in production mode, which wants a long secret, storage keys that are not
+    // the storage fake's published ones, and a seal certificate configured (none is used here).
+    NEXTAUTH_SECRET: "bench-secret-0123456789abcdef-0123456789",
+    S3_ACCESS_KEY_ID: process.env.S3_ACCESS_KEY_ID ?? "bench-local",
+    S3_SECRET_ACCESS_KEY: process.env.S3_SECRET_ACCESS_KEY ?? "bench-local-secret",
+    SEAL_CERT_PATH: process.env.SEAL_CERT_PATH ?? path.join(root, ".data", "seal", "clinic-seal.p12"),
+    SEAL_CERT_PASSWORD: process.env.SEAL_CERT_PASSWORD ?? "bench-unused",
     NEXTAUTH_URL: `http://localhost:${port}`,
     APP_URL: `http://localhost:${port}`,
     NEXT_TELEMETRY_DISABLED: "1",
@@ -76,3 +82,32 @@ export function stats(samples: number[]) {
 }
 
 export const ms = (n: number) => `${n.toFixed(1)} ms`;
+
+/** Resident memory (MB) of the `next-server` process under `pid` (the `next start` child), read from /proc. */
+export function serverRssMb(pid: number): number | null {
+  const children = (p: number): number[] => {
+    try {
+      return readFileSync(`/proc/${p}/task/${p}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number);
+    } catch {
+      return [];
+    }
+  };
+  const tree = [pid];
+  for (let i = 0; i < tree.length; i++) tree.push(...children(tree[i]));
+  const named = tree.filter((p) => {
+    try {
+      return /next-server/.test(readFileSync(`/proc/${p}/cmdline`, "utf8")) || /next-server/.test(readFileSync(`/proc/${p}/comm`, "utf8"));
+    } catch {
+      return false;
+    }
+  });
+  const rss = (named.length ? named : tree).map((p) => {
+    try {
+      const kb = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${p}/status`, "utf8"))?.[1];
+      return kb ? Number(kb) / 1024 : 0;
+    } catch {
+      return 0;
+    }
+  });
+  return rss.length ? Math.max(...rss) : null;
+}

@@ -1,4 +1,4 @@
-// Sign-in security against the real server (scripts/serve.mjs around Next): the client's IP
+// Sign-in security against the real server (scripts/server.mjs around Next): the client's IP
 // cannot be spoofed with X-Forwarded-For, a turned-off account's next request is refused, and
 // staff two-factor sign-in with authenticator codes and single-use recovery codes.
 import { randomUUID } from "node:crypto";

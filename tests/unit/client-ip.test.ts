@@ -1,4 +1,4 @@
-// The client's IP from X-Forwarded-For, as written by scripts/serve.mjs (socket address last).
+// The client's IP from X-Forwarded-For, as written by scripts/server.mjs (socket address last).
 import { describe, expect, it } from "vitest";
 import { clientIpFrom, normaliseAddress, trustedProxies } from "@/lib/server/client-ip";
 

@@ -1,0 +1,143 @@
+// `npm run lighthouse`: Lighthouse 12 (mobile) on the start page, the sign-in page, the patient's
+// home and a proposal, signed in as the demo patient; prints each figure beside its budget in
+// tests/bench/lighthouse-budgets.json. Uses its own database (cuspal_lighthouse, migrated and
+// seeded with the demo clinic) and its own build in .next-lighthouse (built once; set
+// LIGHTHOUSE_REBUILD=1 to build again). Needs Chromium at /usr/bin/chromium.
+import { spawn } from "node:child_process";
+import { existsSync, readFileSync } from "node:fs";
+import net from "node:net";
+import path from "node:path";
+import {
+  appEnv, appServerCommand, bin, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, fail, mustRun, root, say,
+} from "./lib.mjs";
+
+const CHROME_FLAGS = [
+  "--headless", "--no-sandbox", "--disable-gpu",
+  "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run",
+];
+const budgets = JSON.parse(readFileSync(path.join(root, "tests/bench/lighthouse-budgets.json"), "utf8"));
+
+function freePort() {
+  return new Promise((resolve) => {
+    const s = net.createServer();
+    s.listen(0, "127.0.0.1", () => {
+      const { port } = s.address();
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+ensureDependencies();
+ensureChromium();
+await ensurePostgres();
+await ensureDatabases(["cuspal_lighthouse"]);
+const appPort = Number(process.env.PORT ?? (await freePort()));
+const env = {
+  ...process.env,
+  ...appEnv({ db: "cuspal_lighthouse", appPort, smtpPort: await freePort(), mailWebPort: await freePort(), s3Port: await freePort() }),
+  NEXT_DIST_DIR: process.env.NEXT_DIST_DIR ?? ".next-lighthouse",
+  CHROME_PATH: process.env.CHROME_PATH ?? "/usr/bin/chromium",
+};
+mustRun(bin("tsx"), ["db/migrate.ts", "up"], { env });
+mustRun(bin("tsx"), ["scripts/make-seal-certificate.ts"], { env }, "Creating the clinic seal certificate");
+mustRun(bin("tsx"), ["db/seed.ts", "--reset"], { env }, "Loading the demo clinic");
+if (!existsSync(path.join(root, env.NEXT_DIST_DIR, "BUILD_ID")) || process.env.LIGHTHOUSE_REBUILD === "1") {
+  say(`Building the app into ${env.NEXT_DIST_DIR}…`);
+  mustRun(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } });
+}
+
+const [cmd, args] = appServerCommand(appPort);
+const app = spawn(cmd, args, { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "ignore", detached: true });
+const base = `http://localhost:${appPort}`;
+const stopApp = () => { try { process.kill(-app.pid, "SIGTERM"); } catch { /* gone */ } };
+process.on("exit", stopApp);
+let up = false;
+for (let i = 0; i < 300 && !up; i++) {
+  up = await fetch(`${base}/api/health`).then((r) => r.ok, () => false);
+  if (!up) await new Promise((r) => setTimeout(r, 200));
+}
+if (!up) fail("The app did not start for Lighthouse.");
+
+// Sign in as the demo patient in a browser, as a person would, and keep the session cookie.
+const { chromium } = await import("@playwright/test");
+const browser = await chromium.launch({ executablePath: env.CHROME_PATH, args: CHROME_FLAGS.filter((f) => f !== "--headless") });
+const page = await browser.newPage();
+await page.goto(`${base}/sign-in`);
+await page.getByLabel("E-mail", { exact: true }).fill("patient@cuspal.test");
+await page.getByLabel("Password").fill("cuspal-demo");
+await page.getByRole("button", { name: "Sign in", exact: true }).click();
+await page.waitForURL(/\/patient(\/|$)/);
+const session = (await page.context().cookies()).find((c) => c.name.endsWith("next-auth.session-token"));
+if (!session) fail("Signing in as the demo patient set no session cookie.");
+const { proposals } = await (await page.request.get(`${base}/api/proposals`)).json();
+await browser.close();
+if (!proposals?.length) fail("The demo patient has no proposal to measure.");
+const cookie = `${session.name}=${session.value}`;
+
+const pages = [
+  { name: "/", url: `${base}/`, signedIn: false },
+  { name: "/sign-in", url: `${base}/sign-in`, signedIn: false },
+  { name: "/patient", url: `${base}/patient`, signedIn: true },
+  // A proposal still open to booking (one with a visit redirects to that visit).
+  { name: "proposal", url: `${base}/patient/proposals/${(proposals.find((p) => p.status === "open" && !p.activeVisit) ?? proposals[0]).id}`, signedIn: true },
+];
+
+// A signed-in page must answer as the patient, not send Lighthouse to the sign-in page.
+for (const p of pages.filter((x) => x.signedIn)) {
+  const res = await fetch(p.url, { headers: { cookie } });
+  if (res.status !== 200 || new URL(res.url).pathname.startsWith("/sign-in")) fail(`${p.name} answered ${res.status} at ${res.url} with the patient's session.`);
+}
+
+const { default: lighthouse } = await import("lighthouse");
+const chromeLauncher = await import("chrome-launcher");
+const rows = [];
+let over = false;
+for (const p of pages) {
+  const chrome = await chromeLauncher.launch({ chromePath: env.CHROME_PATH, chromeFlags: CHROME_FLAGS });
+  try {
+    const result = await lighthouse(p.url, {
+      port: chrome.port, output: "json", logLevel: "error", onlyCategories: ["performance"],
+      extraHeaders: p.signedIn ? { Cookie: cookie } : undefined,
+    });
+    const lhr = result.lhr;
+    const script = lhr.audits["resource-summary"].details.items.find((i) => i.resourceType === "script");
+    const figures = {
+      performance: Math.round((lhr.categories.performance.score ?? 0) * 100),
+      lcp: lhr.audits["largest-contentful-paint"].numericValue,
+      cls: lhr.audits["cumulative-layout-shift"].numericValue,
+      tbt: lhr.audits["total-blocking-time"].numericValue,
+      scriptKb: (script?.transferSize ?? 0) / 1024,
+    };
+    if (lhr.finalDisplayedUrl && !lhr.finalDisplayedUrl.startsWith(p.url)) {
+      console.log(`  note: ${p.name} ended on ${lhr.finalDisplayedUrl}`);
+    }
+    rows.push({ page: p.name, figures });
+  } finally {
+    await chrome.kill();
+  }
+}
+stopApp();
+
+const fmt = {
+  performance: (v) => String(v),
+  lcp: (v) => `${(v / 1000).toFixed(2)} s`,
+  cls: (v) => v.toFixed(3),
+  tbt: (v) => `${Math.round(v)} ms`,
+  scriptKb: (v) => `${v.toFixed(1)} kB`,
+};
+const budgetText = {
+  performance: `≥ ${budgets.performance.min}`, lcp: `≤ ${budgets.lcp.max / 1000} s`, cls: `≤ ${budgets.cls.max}`,
+  tbt: `≤ ${budgets.tbt.max} ms`, scriptKb: `≤ ${budgets.scriptKb.max} kB`,
+};
+const within = (k, v) => (budgets[k].min !== undefined ? v >= budgets[k].min : v <= budgets[k].max);
+console.log(`\nLighthouse 12, mobile (simulated throttling), ${base}`);
+console.log(["page".padEnd(10), ...Object.keys(fmt).map((k) => `${k} (${budgetText[k]})`.padEnd(26))].join(" | "));
+for (const r of rows) {
+  const cells = Object.keys(fmt).map((k) => {
+    const ok = within(k, r.figures[k]);
+    if (!ok) over = true;
+    return `${fmt[k](r.figures[k])}${ok ? "" : "  over"}`.padEnd(26);
+  });
+  console.log([r.page.padEnd(10), ...cells].join(" | "));
+}
+process.exit(over ? 1 : 0);

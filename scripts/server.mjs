@@ -1,0 +1,32 @@
+// Serves the built app (what `npm start`, `npm run demo` and `npm run serve` run). Next's own `next start` only fills in
+// X-Forwarded-For when the request lacks it, so a client could name any address; here the
+// socket's address is always appended as the last hop, and lib/server/client-ip.ts walks the
+// header from the right, believing earlier hops only from the proxies listed in TRUSTED_PROXIES.
+import { createServer } from "node:http";
+import next from "next";
+
+const port = Number(process.env.PORT ?? 3000);
+const args = process.argv.slice(2);
+const flag = (name) => {
+  const i = args.indexOf(name);
+  return i >= 0 ? args[i + 1] : undefined;
+};
+const listenPort = Number(flag("-p") ?? port);
+// Like `next start`: every interface unless -H names one.
+const listenHost = flag("-H");
+
+const app = next({ dev: false, hostname: listenHost ?? "localhost", port: listenPort });
+await app.prepare();
+const handle = app.getRequestHandler();
+
+createServer((req, res) => {
+  const peer = req.socket.remoteAddress ?? "unknown";
+  const incoming = req.headers["x-forwarded-for"];
+  const chain = Array.isArray(incoming) ? incoming.join(", ") : incoming;
+  req.headers["x-forwarded-for"] = chain ? `${chain}, ${peer}` : peer;
+  // X-Real-IP is not ours to read; drop it so nothing downstream mistakes it for the client.
+  delete req.headers["x-real-ip"];
+  handle(req, res);
+}).listen(listenPort, listenHost, () => {
+  console.log(`Cuspal is listening on port ${listenPort}`);
+});
