@@ -23,7 +23,7 @@ export async function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: 
           {user.role === "patient" ? <LanguageSwitcher /> : null}
           <SignOutButton />
           <details className="relative">
-            <summary className="btn-quiet min-h-10 cursor-pointer list-none px-3 text-sm">Account</summary>
+            <summary className="btn-quiet min-h-10 cursor-pointer list-none px-3 text-sm">{t("account")}</summary>
             <div className="absolute right-0 z-10 mt-1 w-56 rounded-lg border border-line bg-white p-2 shadow-md">
               {user.role !== "patient" ? (
                 <Link href="/two-factor" className="block min-h-10 rounded-md px-3 py-2 text-sm no-underline hover:bg-paper-deep">Two-factor sign-in</Link>

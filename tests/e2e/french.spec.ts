@@ -24,7 +24,7 @@ function englishWordsIn(text: string, more: string[] = []): string[] {
 }
 
 // The English words of the details and documents screens ([C] our own list, no source).
-const DETAILS_AND_DOCUMENTS_WORDS = ["My details", "Mobile phone", "E-mail", "Save", "Download", "records", "Upload", "Take a photo", "Choose a file", "Title", "Added by", "Sent so far", "Insurance card", "No file chosen"];
+const DETAILS_AND_DOCUMENTS_WORDS = ["My details", "Mobile phone", "E-mail", "Save", "Download", "records", "Upload", "Take a photo", "Choose a file", "Title", "Added by", "Sent so far", "Insurance card", "No file chosen", "Account"];
 
 async function pdfText(bytes: Buffer): Promise<string> {
   const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
@@ -166,7 +166,7 @@ test("a French-speaking patient's details and documents are in French", async ({
     await page.waitForURL(/\/patient$/);
 
     // "Mes coordonnées": headings, labels, hints and the button.
-    await page.getByRole("navigation", { name: "Sections" }).getByRole("link", { name: "Mes coordonnées" }).click();
+    await page.getByRole("navigation", { name: "Rubriques" }).getByRole("link", { name: "Mes coordonnées" }).click();
     await expect(page.getByRole("heading", { level: 1 })).toHaveText("Mes coordonnées");
     await expect(page.locator("html")).toHaveAttribute("lang", "fr");
     await expect(page.getByLabel("Téléphone mobile")).toBeVisible();
