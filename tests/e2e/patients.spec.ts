@@ -79,12 +79,12 @@ test.describe("patient records", () => {
     await reception.goto(`/clinic/patients?q=${encodeURIComponent(`maelle quintal-${tag}`)}`);
     await expect(reception.getByRole("link", { name })).toBeVisible();
 
-    // The e-mailed link signs the new patient in on a phone.
+    // The e-mailed link signs the new patient in on a phone; she was registered as French-speaking.
     const link = await invitationLink(email);
     const phone = await pageFor(browser, PHONE);
     await phone.goto(link);
     await expect(phone).toHaveURL(/\/patient$/);
-    await expect(phone.getByRole("heading", { level: 1 })).toHaveText("Hello, Maëlle");
+    await expect(phone.getByRole("heading", { level: 1 })).toHaveText("Bonjour, Maëlle");
     const [signedIn] = await query<{ first_signed_in_at: Date | null }>("SELECT first_signed_in_at FROM patients WHERE id = $1", [patientId]);
     expect(signedIn.first_signed_in_at).not.toBeNull();
     // The link works once.
@@ -104,8 +104,8 @@ test.describe("patient records", () => {
     await expect(dentist).toHaveURL(/\/clinic$/);
 
     await phone.reload();
-    await expect(phone.getByRole("link", { name: "Compare and book" })).toHaveCount(1);
-    await expect(phone.getByText(/Tooth 36/)).toBeVisible();
+    await expect(phone.getByRole("link", { name: "Comparer et réserver" })).toHaveCount(1);
+    await expect(phone.getByText(/Dent 36/)).toBeVisible();
     await phone.screenshot({ path: "test-results/patient-first-proposal-390.png", fullPage: true });
 
     // Her own details and the download of her records.
