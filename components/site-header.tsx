@@ -15,7 +15,8 @@ export async function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: 
     <header className="border-b border-line bg-white">
       <div className="mx-auto flex max-w-page flex-wrap items-center justify-between gap-3 px-gutter py-3">
         <Brand href={user.role === "patient" ? "/patient" : "/clinic"} />
-        <div className="flex items-center gap-3">
+        {/* Wraps on a phone: the name, the language switcher and two buttons do not fit 390 px in one row. */}
+        <div className="flex flex-wrap items-center justify-end gap-3">
           <p className="text-right text-sm leading-tight">
             <span className="block font-semibold" data-testid="signed-in-name">{user.name ?? user.email}</span>
             <span className="text-ink-muted">{user.role === "patient" ? t("patientRole") : ROLE_LABEL[user.role]}</span>
