@@ -15,7 +15,8 @@ export async function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: 
     <header className="border-b border-line bg-white">
       <div className="mx-auto flex max-w-page flex-wrap items-center justify-between gap-3 px-gutter py-3">
         <Brand href={user.role === "patient" ? "/patient" : "/clinic"} />
-        <div className="flex flex-wrap items-center justify-end gap-2">
+        {/* Wraps on a phone: the name, the language switcher and two buttons do not fit 390 px in one row. */}
+        <div className="flex flex-wrap items-center justify-end gap-3">
           <p className="text-right text-sm leading-tight">
             <span className="block font-semibold" data-testid="signed-in-name">{user.name ?? user.email}</span>
             <span className="text-ink-muted">{user.role === "patient" ? t("patientRole") : ROLE_LABEL[user.role]}</span>
@@ -23,7 +24,7 @@ export async function SiteHeader({ user, nav = [] }: { user: SessionUser; nav?: 
           {user.role === "patient" ? <LanguageSwitcher /> : null}
           <SignOutButton />
           <details className="relative">
-            <summary className="btn-quiet min-h-10 cursor-pointer list-none px-3 text-sm">Account</summary>
+            <summary className="btn-quiet min-h-10 cursor-pointer list-none px-3 text-sm">{t("account")}</summary>
             <div className="absolute right-0 z-10 mt-1 w-56 rounded-lg border border-line bg-white p-2 shadow-md">
               {user.role !== "patient" ? (
                 <Link href="/two-factor" className="block min-h-10 rounded-md px-3 py-2 text-sm no-underline hover:bg-paper-deep">Two-factor sign-in</Link>

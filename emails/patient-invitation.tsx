@@ -1,23 +1,23 @@
 import { Text } from "@react-email/components";
+import { emailTranslator, type EmailT } from "@/lib/i18n/email";
 import { EmailButton } from "./parts/button";
 import { EmailLayout } from "./parts/layout";
 
-export type PatientInvitationProps = { url: string; patientName: string; clinicName: string; clinicAddress?: string; clinicPhone?: string | null; hours: number };
+export type PatientInvitationProps = {
+  url: string; patientName: string; clinicName: string; clinicAddress?: string; clinicPhone?: string | null; hours: number;
+  /** The patient's registered language; English when not given. */
+  t?: EmailT;
+};
 
 /** The clinic's invitation to a newly registered patient: one link that signs them in. */
-export default function PatientInvitationEmail({ url, patientName, clinicName, clinicAddress, clinicPhone, hours }: PatientInvitationProps) {
+export default function PatientInvitationEmail({ url, patientName, clinicName, clinicAddress, clinicPhone, hours, t = emailTranslator("en") }: PatientInvitationProps) {
   return (
-    <EmailLayout preview={`${clinicName} invites you to your crown visit portal`} clinicName={clinicName} clinicAddress={clinicAddress} clinicPhone={clinicPhone}>
-      <Text>Hello {patientName},</Text>
-      <Text>
-        {clinicName} has opened a Cuspal account for you. There you can see the crowns your dentist proposes, choose a visit time,
-        read and sign your consent, and keep your documents.
-      </Text>
-      <EmailButton href={url}>Open my Cuspal account</EmailButton>
-      <Text style={{ fontSize: 13 }}>
-        The button signs you in once and stops working after {hours} hours. Later, ask for a new sign-in link on the sign-in page with this e-mail address.
-      </Text>
-      <Text style={{ fontSize: 13 }}>If you do not know this clinic, ignore this e-mail; nobody can use the account without the link.</Text>
+    <EmailLayout t={t} preview={t("invitation.preview", { clinic: clinicName })} clinicName={clinicName} clinicAddress={clinicAddress} clinicPhone={clinicPhone}>
+      <Text>{t("hello", { name: patientName })}</Text>
+      <Text>{t("invitation.body", { clinic: clinicName })}</Text>
+      <EmailButton href={url}>{t("invitation.button")}</EmailButton>
+      <Text style={{ fontSize: 13 }}>{t("invitation.expiry", { hours })}</Text>
+      <Text style={{ fontSize: 13 }}>{t("invitation.ignore")}</Text>
     </EmailLayout>
   );
 }

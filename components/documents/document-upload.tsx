@@ -3,14 +3,17 @@
 // Upload form for documents: from the camera or from files, with progress (XMLHttpRequest, as
 // fetch cannot report upload progress) and a retry that resends the same file.
 import { zodResolver } from "@hookform/resolvers/zod";
+import { useLocale, useTranslations } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import {
-  ACCEPT_ATTRIBUTE, DOCUMENT_KIND_LABEL, formatBytes, MAX_DOCUMENT_BYTES, tooLargeMessage, type DocumentKind,
+  ACCEPT_ATTRIBUTE, DOCUMENT_KINDS, MAX_DOCUMENT_BYTES, megabytesRoundedUp, type DocumentKind,
 } from "@/lib/domain/documents";
 import { documentFieldsSchema, TITLE_MAX } from "@/lib/documents/schema";
+import { INTL_TAG, isLocale } from "@/lib/i18n/locale";
+import { useSizeWords } from "./size-words";
 
 type Input = z.input<typeof documentFieldsSchema>;
 type Output = z.output<typeof documentFieldsSchema>;
@@ -25,6 +28,14 @@ const pickerClass =
   "btn-quiet cursor-pointer has-[:focus-visible]:outline-2 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-harbour-600";
 
 export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; patientId?: string }) {
+  // Staff pages render in English (i18n/request.ts), so there these words stay English.
+  const t = useTranslations("documentUpload");
+  const tl = useTranslations("documentList");
+  const sizeWords = useSizeWords();
+  const kindLabel = (k: string) => ((DOCUMENT_KINDS as readonly string[]).includes(k) ? tl(`kinds.${k}`) : "");
+  const locale = useLocale();
+  const oneDecimal = new Intl.NumberFormat(INTL_TAG[isLocale(locale) ? locale : "en"], { minimumFractionDigits: 1, maximumFractionDigits: 1, useGrouping: false });
+  const tooLarge = (bytes: number) => t("tooLarge", { size: oneDecimal.format(megabytesRoundedUp(bytes)) });
   const router = useRouter();
   const ids = useId();
   const [file, setFile] = useState<File | null>(null);
@@ -40,8 +51,8 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
     onChange: (e: React.ChangeEvent<HTMLSelectElement>) => {
       // Offer the kind's name as the title until the person types their own.
       const title = getValues("title").trim();
-      const previous = Object.values(DOCUMENT_KIND_LABEL);
-      if (!title || previous.includes(title)) setValue("title", DOCUMENT_KIND_LABEL[e.target.value as DocumentKind] ?? "");
+      const previous = DOCUMENT_KINDS.map(kindLabel);
+      if (!title || previous.includes(title)) setValue("title", kindLabel(e.target.value));
     },
   });
 
@@ -51,7 +62,7 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
     setState({ step: "idle" });
     if (!chosen) return;
     setFile(chosen);
-    setFileError(chosen.size > MAX_DOCUMENT_BYTES ? tooLargeMessage(chosen.size) : null);
+    setFileError(chosen.size > MAX_DOCUMENT_BYTES ? tooLarge(chosen.size) : null);
   }
 
   function send(attempt: Attempt) {
@@ -75,21 +86,21 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
         return;
       }
       const res = (xhr.response ?? {}) as { error?: string; field?: string };
-      const message = res.error ?? "The upload did not work. Please try again.";
+      const message = res.error ?? t("failed");
       if (res.field === "kind" || res.field === "title") setError(res.field, { message });
       if (res.field === "file") setFileError(message);
       const retryable = xhr.status >= 500 || xhr.status === 408 || xhr.status === 429;
       setState({ step: "failed", message, retry: retryable ? attempt : null });
     };
     xhr.onerror = xhr.ontimeout = () =>
-      setState({ step: "failed", message: "The upload did not get through. Check your connection, then try again.", retry: attempt });
+      setState({ step: "failed", message: t("offline"), retry: attempt });
     setState({ step: "sending", percent: 0 });
     xhr.send(body);
   }
 
   const submit = handleSubmit((values) => {
-    if (!file) return setFileError("Take a photo or choose a file first.");
-    if (file.size > MAX_DOCUMENT_BYTES) return setFileError(tooLargeMessage(file.size));
+    if (!file) return setFileError(t("noFileError"));
+    if (file.size > MAX_DOCUMENT_BYTES) return setFileError(tooLarge(file.size));
     send({ values, file });
   });
 
@@ -97,54 +108,54 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
   return (
     <form onSubmit={submit} noValidate className="space-y-4" aria-describedby={`${ids}-rules`}>
       <p id={`${ids}-rules`} className="text-sm text-ink-soft">
-        Photos (JPEG, PNG or WebP) or PDF files, up to 15&nbsp;MB. Location data is removed from photos before they are stored.
+        {t("rules")}
       </p>
 
       <div>
-        <label htmlFor={`${ids}-kind`} className="field-label">What is it?</label>
+        <label htmlFor={`${ids}-kind`} className="field-label">{t("kind")}</label>
         <select id={`${ids}-kind`} className="field-input" aria-invalid={!!errors.kind} aria-describedby={errors.kind ? `${ids}-kind-error` : undefined} {...kindField}>
-          <option value="">Choose…</option>
-          {kinds.map((k) => <option key={k} value={k}>{DOCUMENT_KIND_LABEL[k]}</option>)}
+          <option value="">{t("choose")}</option>
+          {kinds.map((k) => <option key={k} value={k}>{kindLabel(k)}</option>)}
         </select>
         {errors.kind ? <p id={`${ids}-kind-error`} className="field-error">{errors.kind.message}</p> : null}
       </div>
 
       <div>
-        <label htmlFor={`${ids}-title`} className="field-label">Title</label>
+        <label htmlFor={`${ids}-title`} className="field-label">{t("title")}</label>
         <input id={`${ids}-title`} className="field-input" maxLength={TITLE_MAX} autoComplete="off"
           aria-invalid={!!errors.title} aria-describedby={errors.title ? `${ids}-title-error` : undefined} {...register("title")} />
         {errors.title ? <p id={`${ids}-title-error`} className="field-error">{errors.title.message}</p> : null}
       </div>
 
       <fieldset aria-describedby={fileError ? `${ids}-file-error` : undefined}>
-        <legend className="field-label">File</legend>
+        <legend className="field-label">{t("file")}</legend>
         <div className="flex flex-wrap gap-2">
           <label className={pickerClass}>
             <input type="file" accept="image/*" capture="environment" className="sr-only" onChange={choose} disabled={sending} />
-            Take a photo
+            {t("takePhoto")}
           </label>
           <label className={pickerClass}>
             <input type="file" accept={ACCEPT_ATTRIBUTE} className="sr-only" onChange={choose} disabled={sending} />
-            Choose a file
+            {t("chooseFile")}
           </label>
         </div>
         <p className="mt-2 text-sm text-ink-soft" aria-live="polite" data-testid="chosen-file">
-          {file ? <>Chosen: <span className="font-semibold break-all">{file.name}</span> ({formatBytes(file.size)})</> : "No file chosen yet."}
+          {file ? t.rich("chosen", { size: sizeWords(file.size), name: () => <span className="font-semibold break-all">{file.name}</span> }) : t("noFile")}
         </p>
         {fileError ? <p id={`${ids}-file-error`} className="field-error" role="alert" data-testid="file-error">{fileError}</p> : null}
       </fieldset>
 
       <div className="flex flex-wrap items-center gap-3">
-        <button type="submit" className="btn-primary" disabled={sending}>{sending ? "Uploading…" : "Upload"}</button>
+        <button type="submit" className="btn-primary" disabled={sending}>{sending ? t("uploading") : t("upload")}</button>
         {state.step === "failed" && state.retry ? (
-          <button type="button" className="btn-quiet" onClick={() => state.retry && send(state.retry)}>Try again</button>
+          <button type="button" className="btn-quiet" onClick={() => state.retry && send(state.retry)}>{t("tryAgain")}</button>
         ) : null}
       </div>
 
       {sending ? (
         <div className="space-y-1">
           <label htmlFor={`${ids}-progress`} className="text-sm font-semibold">
-            Uploading {state.percent === null ? "…" : `${state.percent} %`}
+            {t("progress", { percent: state.percent === null ? "unknown" : String(state.percent) })}
           </label>
           <progress
             id={`${ids}-progress`}
@@ -155,7 +166,7 @@ export function DocumentUpload({ kinds, patientId }: { kinds: DocumentKind[]; pa
         </div>
       ) : null}
       <div aria-live="polite">
-        {state.step === "done" ? <p className="font-semibold text-sage-700" data-testid="upload-done">Uploaded: {state.title}</p> : null}
+        {state.step === "done" ? <p className="font-semibold text-sage-700" data-testid="upload-done">{t("done", { title: state.title })}</p> : null}
       </div>
       {state.step === "failed" && !fileError && !errors.kind && !errors.title ? (
         <p className="field-error" role="alert" data-testid="upload-error">{state.message}</p>

@@ -10,6 +10,7 @@ import type { SessionUser } from "@/lib/auth/session";
 import { patientOf } from "@/lib/data/access";
 import type { Language, UpdateMe } from "@/lib/domain/patient-record";
 import { env } from "@/lib/env";
+import { emailTranslator } from "@/lib/i18n/email";
 import { renderEmail } from "@/lib/mail/render";
 import { mailFrom, mailTransport } from "@/lib/mail/transport";
 import { recordAudit } from "@/lib/server/audit";
@@ -76,8 +77,10 @@ export async function updateMe({ user, changes, info = {} }: { user: SessionUser
       });
       const url = new URL("/api/me/email", env().APP_URL);
       url.searchParams.set("token", token);
-      const { html, text } = await renderEmail(createElement(EmailChangeEmail, { url: url.toString(), hours: EMAIL_CHANGE_HOURS }));
-      await mailTransport().sendMail({ from: mailFrom(), to: changes.email, subject: "Confirm your new e-mail address for Cuspal", html, text });
+      // In the patient's language as it stands after this change (row.update above already applied it).
+      const t = emailTranslator(row.language);
+      const { html, text } = await renderEmail(createElement(EmailChangeEmail, { url: url.toString(), hours: EMAIL_CHANGE_HOURS, t }));
+      await mailTransport().sendMail({ from: mailFrom(), to: changes.email, subject: t("emailChange.subject"), html, text });
       fields.push("emailRequested");
       emailPending = true;
     }

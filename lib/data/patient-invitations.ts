@@ -10,6 +10,7 @@ import type { SessionUser } from "@/lib/auth/session";
 import { isUuid } from "@/lib/domain/documents";
 import { displayPhone } from "@/lib/domain/patient-record";
 import { env } from "@/lib/env";
+import { emailTranslator } from "@/lib/i18n/email";
 import { renderEmail } from "@/lib/mail/render";
 import { mailFrom, mailTransport } from "@/lib/mail/transport";
 import { recordAudit } from "@/lib/server/audit";
@@ -72,7 +73,10 @@ export async function invitePatient({ user, patientId, info = {}, now = new Date
       { clinicId, actorUserId: user.id, action: "patient.invited", subjectType: "patient", subjectId: patient.id, ip: info.ip, userAgent: info.userAgent, data: { expiresAt } },
       transaction,
     );
+    // In the language staff registered for the patient.
+    const t = emailTranslator(patient.language);
     const { html, text } = await renderEmail(createElement(PatientInvitationEmail, {
+      t,
       url: signInLink(token, account.email),
       patientName: account.name ?? account.email,
       clinicName: clinic.name,
@@ -81,7 +85,7 @@ export async function invitePatient({ user, patientId, info = {}, now = new Date
       hours: INVITATION_HOURS,
     }));
     // Sent last, inside the transaction: when the mail server refuses, nothing is recorded and staff can retry.
-    await mailTransport().sendMail({ from: mailFrom(), to: account.email, subject: `${clinic.name} invites you to Cuspal`, html, text });
+    await mailTransport().sendMail({ from: mailFrom(), to: account.email, subject: t("invitation.subject", { clinic: clinic.name }), html, text });
     return { expiresAt };
   });
 }

@@ -77,16 +77,26 @@ export function unsupportedContentMessage(detectedMime: string | undefined): str
   return `This file is not ${ALLOWED_CONTENT_SENTENCE}, whatever its name says. Please choose ${ALLOWED_CONTENT_SENTENCE}.`;
 }
 
-export function formatBytes(bytes: number): string {
-  if (bytes < 1024) return `${bytes} bytes`;
-  if (bytes < 1024 * 1024) return `${Math.round(bytes / 1024)} KB`;
+/** A file size as a number and a unit, for words in any language: 1 decimal below 10 MB. */
+export function sizeParts(bytes: number): { unit: "bytes" | "kb" | "mb"; n: number; decimals: 0 | 1 } {
+  if (bytes < 1024) return { unit: "bytes", n: bytes, decimals: 0 };
+  if (bytes < 1024 * 1024) return { unit: "kb", n: Math.round(bytes / 1024), decimals: 0 };
   const mb = bytes / (1024 * 1024);
-  return `${mb < 10 ? mb.toFixed(1) : Math.round(mb)} MB`;
+  return mb < 10 ? { unit: "mb", n: Number(mb.toFixed(1)), decimals: 1 } : { unit: "mb", n: Math.round(mb), decimals: 0 };
+}
+
+export function formatBytes(bytes: number): string {
+  const { unit, n, decimals } = sizeParts(bytes);
+  return `${n.toFixed(decimals)} ${{ bytes: "bytes", kb: "KB", mb: "MB" }[unit]}`;
+}
+
+/** Megabytes with one decimal, rounded up, so a file just over the limit never reads as exactly 15 MB. */
+export function megabytesRoundedUp(bytes: number): number {
+  return Math.ceil((bytes / (1024 * 1024)) * 10) / 10;
 }
 
 export function tooLargeMessage(bytes?: number): string {
-  // Rounded up, so a file just over the limit never reads as exactly 15 MB.
-  const size = bytes === undefined ? "This file is larger than 15 MB, the limit." : `This file is ${(Math.ceil((bytes / (1024 * 1024)) * 10) / 10).toFixed(1)} MB; the limit is 15 MB.`;
+  const size = bytes === undefined ? "This file is larger than 15 MB, the limit." : `This file is ${megabytesRoundedUp(bytes).toFixed(1)} MB; the limit is 15 MB.`;
   return `${size} Please choose a smaller file, or take the photo again at a lower resolution.`;
 }
 

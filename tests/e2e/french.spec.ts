@@ -3,6 +3,7 @@
 // PDF (read back with pdfjs-dist) is French with its accents intact; the confirmation e-mail in the
 // mail catcher is in French. The patient is switched back to English at the end.
 import { expect, test, type BrowserContext, type Page } from "@playwright/test";
+import { jpegWithGps } from "../support/sample-files";
 import { DEMO_PASSWORD, query, signIn } from "./support";
 
 const catcher = process.env.MAIL_CATCHER_URL;
@@ -16,11 +17,14 @@ async function visibleText(page: Page): Promise<string> {
   return typed.reduce((text, t) => text.split(t).join(" "), await page.locator("body").innerText());
 }
 
-function englishWordsIn(text: string): string[] {
+function englishWordsIn(text: string, more: string[] = []): string[] {
   // Names of people, the clinic and places are invented data and stay as they are.
   const cleaned = text.replace(/Zoë Halvorsen-Ruiz|English|Cuspal/g, "");
-  return ENGLISH_WORDS.filter((w) => new RegExp(`\\b${w}\\b`).test(cleaned));
+  return [...ENGLISH_WORDS, ...more].filter((w) => new RegExp(`\\b${w}\\b`).test(cleaned));
 }
+
+// The English words of the details and documents screens ([C] our own list, no source).
+const DETAILS_AND_DOCUMENTS_WORDS = ["My details", "Mobile phone", "E-mail", "Save", "Download", "records", "Upload", "Take a photo", "Choose a file", "Title", "Added by", "Sent so far", "Insurance card", "No file chosen", "Account"];
 
 async function pdfText(bytes: Buffer): Promise<string> {
   const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
@@ -147,6 +151,49 @@ test("a French-speaking patient books, signs and is written to in French", async
     if (visitId && staff) await staff.request.post(`/api/appointments/${visitId}/cancel`, { data: { reason: "End of the test run." } });
     await staff?.close();
     await query("UPDATE proposals SET status = 'closed' WHERE id = $1", [proposal.id]);
+    await query("UPDATE patients SET language = 'en' WHERE user_id = (SELECT id FROM users WHERE email = 'patient@cuspal.test')");
+  }
+});
+
+test("a French-speaking patient's details and documents are in French", async ({ page }) => {
+  test.setTimeout(120_000);
+  await query("UPDATE patients SET language = 'fr' WHERE user_id = (SELECT id FROM users WHERE email = 'patient@cuspal.test')");
+  try {
+    await page.goto("/sign-in");
+    await page.getByLabel("Courriel", { exact: true }).fill("patient@cuspal.test");
+    await page.getByLabel("Mot de passe").fill(DEMO_PASSWORD);
+    await page.getByRole("button", { name: "Se connecter", exact: true }).click();
+    await page.waitForURL(/\/patient$/);
+
+    // "Mes coordonnées": headings, labels, hints and the button.
+    await page.getByRole("navigation", { name: "Rubriques" }).getByRole("link", { name: "Mes coordonnées" }).click();
+    await expect(page.getByRole("heading", { level: 1 })).toHaveText("Mes coordonnées");
+    await expect(page.locator("html")).toHaveAttribute("lang", "fr");
+    await expect(page.getByLabel("Téléphone mobile")).toBeVisible();
+    await expect(page.getByRole("radio", { name: "Français" })).toBeChecked();
+    await expect(page.getByRole("link", { name: "Télécharger mon dossier" })).toBeVisible();
+    expect(englishWordsIn(await visibleText(page), DETAILS_AND_DOCUMENTS_WORDS)).toEqual([]);
+    await page.screenshot({ path: "test-results/french-details-390.png", fullPage: true });
+
+    // The documents page, with one upload so the list shows its words too.
+    await page.goto("/patient/documents");
+    await expect(page.getByRole("heading", { level: 1 })).toHaveText("Vos documents");
+    await page.getByLabel("De quoi s'agit-il?").selectOption({ label: "Photo de la dent" });
+    await expect(page.getByLabel("Titre")).toHaveValue("Photo de la dent");
+    const title = `Photo de la dent ${Date.now()}`;
+    await page.getByLabel("Titre").fill(title);
+    await page.getByLabel("Choisir un fichier").setInputFiles({ name: "dent.jpg", mimeType: "image/jpeg", buffer: await jpegWithGps() });
+    await expect(page.getByTestId("chosen-file")).toContainText("Choisi : dent.jpg");
+    expect(englishWordsIn(await visibleText(page), DETAILS_AND_DOCUMENTS_WORDS)).toEqual([]);
+    await page.getByRole("button", { name: "Téléverser" }).click();
+    await expect(page.getByTestId("upload-done")).toHaveText(`Téléversé : ${title}`, { timeout: 30_000 });
+    const item = page.getByTestId("document-list").getByRole("listitem").filter({ hasText: title });
+    await expect(item).toContainText("Ajouté par vous le");
+    await expect(item).toContainText("Photo JPEG");
+    await expect(item.getByRole("link", { name: /^Ouvrir/ })).toBeVisible();
+    expect(englishWordsIn(await visibleText(page), DETAILS_AND_DOCUMENTS_WORDS)).toEqual([]);
+    await page.screenshot({ path: "test-results/french-documents-390.png", fullPage: true });
+  } finally {
     await query("UPDATE patients SET language = 'en' WHERE user_id = (SELECT id FROM users WHERE email = 'patient@cuspal.test')");
   }
 });

@@ -17,7 +17,7 @@ async function pageFor(browser: Browser, viewport: { width: number; height: numb
 async function invitationLink(address: string): Promise<string> {
   for (let i = 0; i < 50; i++) {
     const all = (await (await fetch(`${catcher}/api/email`)).json()) as { to: { address: string }[]; subject: string; text?: string }[];
-    const mail = all.find((m) => m.to.some((t) => t.address.toLowerCase() === address) && /invites you/.test(m.subject));
+    const mail = all.find((m) => m.to.some((t) => t.address.toLowerCase() === address) && /invites you|vous invite/.test(m.subject));
     const link = mail?.text?.match(/https?:\/\/\S+\/api\/auth\/callback\/email\?\S+/)?.[0];
     if (link) return link;
     await new Promise((r) => setTimeout(r, 200));
@@ -79,7 +79,7 @@ test.describe("patient records", () => {
     await reception.goto(`/clinic/patients?q=${encodeURIComponent(`maelle quintal-${tag}`)}`);
     await expect(reception.getByRole("link", { name })).toBeVisible();
 
-    // The e-mailed link signs the new patient in on a phone.
+    // The e-mailed link signs the new patient in on a phone; she was registered as French-speaking.
     const link = await invitationLink(email);
     const phone = await pageFor(browser, PHONE);
     await phone.goto(link);
@@ -111,8 +111,8 @@ test.describe("patient records", () => {
 
     // Her own details and the download of her records.
     await phone.goto("/patient/profile");
-    await expect(phone.getByLabel("Mobile phone")).toHaveValue("(613) 555-0127");
-    await expect(phone.getByRole("radio", { name: "French" })).toBeChecked();
+    await expect(phone.getByLabel("Téléphone mobile")).toHaveValue("(613) 555-0127");
+    await expect(phone.getByRole("radio", { name: "Français" })).toBeChecked();
     await expectNoAxeViolations(phone);
     await phone.screenshot({ path: "test-results/patient-profile-390.png", fullPage: true });
     const zip = await phone.request.get("/api/me/export");

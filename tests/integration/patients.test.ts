@@ -233,6 +233,9 @@ describe("the patient's own profile", () => {
     expect((await change.json()).emailPending).toBe(true);
     expect((await User.findByPk(user.id))!.email).toBe(user.email);
     const mail = await eventually(async () => (await caughtFor(newEmail))[0]);
+    // She chose French above, so the confirmation link is written in French.
+    expect(mail.subject).toBe("Confirmez votre nouvelle adresse courriel pour Cuspal");
+    expect(mail.text).toContain("Utiliser cette adresse");
     const link = new URL(mail.text!.match(/https?:\/\/\S+\/api\/me\/email\?token=[0-9a-f]+/)![0]);
     const { GET: confirm } = await import("@/app/api/me/email/route");
     const done = await confirm(new NextRequest(`http://localhost${link.pathname}${link.search}`), undefined);
@@ -260,5 +263,19 @@ describe("the patient's own profile", () => {
   it("is for patients only", async () => {
     as(t.staff.reception);
     expect((await meRoute.GET(json("GET", "/api/me"), undefined)).status).toBe(403);
+  });
+});
+
+describe("inviting a French-speaking patient", () => {
+  it("writes the invitation in the language staff registered", async () => {
+    as(t.staff.reception);
+    const email = uniqueEmail("amelie");
+    const { body } = await register({ name: "Amélie Testpersonne", email, dateOfBirth: "1988-11-05", language: "fr" });
+    expect((await inviteRoute.POST(json("POST", `/api/patients/${body.id}/invite`), params(body.id))).status).toBe(202);
+    const mail = await eventually(async () => (await caughtFor(email))[0]);
+    expect(mail.subject).toMatch(/ vous invite sur Cuspal$/);
+    expect(mail.subject).not.toContain("invites you");
+    expect(mail.text).toContain("Bonjour Amélie Testpersonne");
+    expect(mail.text).toContain("Ouvrir mon compte Cuspal");
   });
 });

@@ -2,7 +2,7 @@
 import { describe, expect, it } from "vitest";
 import {
   ACCEPT_ATTRIBUTE, DOCUMENT_KINDS, downloadName, fileNameProblem, formatBytes, isAllowedContentType, isUuid, kindsFor,
-  MAX_DOCUMENT_BYTES, mayUploadKind, objectKeyFor, tooLargeMessage, unsupportedContentMessage,
+  MAX_DOCUMENT_BYTES, mayUploadKind, megabytesRoundedUp, objectKeyFor, sizeParts, tooLargeMessage, unsupportedContentMessage,
 } from "@/lib/domain/documents";
 import { documentFieldsSchema } from "@/lib/documents/schema";
 
@@ -84,5 +84,20 @@ describe("upload form fields", () => {
     expect(bad.error?.issues.map((i) => i.path.join("."))).toEqual(["kind", "title"]);
     expect(documentFieldsSchema.safeParse({ kind: "other", title: "t".repeat(121) }).success).toBe(false);
     expect(documentFieldsSchema.safeParse({ kind: "other", title: "ok", patientId: "12" }).error?.issues[0].path).toEqual(["patientId"]);
+  });
+});
+
+describe("sizes in any language", () => {
+  it("splits a size into number and unit the way formatBytes words it", () => {
+    expect(sizeParts(512)).toEqual({ unit: "bytes", n: 512, decimals: 0 });
+    expect(sizeParts(2048)).toEqual({ unit: "kb", n: 2, decimals: 0 });
+    expect(sizeParts(1.5 * 1024 * 1024)).toEqual({ unit: "mb", n: 1.5, decimals: 1 });
+    expect(sizeParts(12 * 1024 * 1024)).toEqual({ unit: "mb", n: 12, decimals: 0 });
+    expect(formatBytes(2 * 1024 * 1024)).toBe("2.0 MB");
+  });
+
+  it("rounds an oversized file up, so just over the limit never reads as the limit", () => {
+    expect(megabytesRoundedUp(MAX_DOCUMENT_BYTES + 1)).toBe(15.1);
+    expect(megabytesRoundedUp(20 * 1024 * 1024)).toBe(20);
   });
 });

@@ -3,6 +3,8 @@
 import { createElement, type ReactElement } from "react";
 import { describe, expect, it } from "vitest";
 import AftercareEmail from "@/emails/aftercare";
+import EmailChangeEmail from "@/emails/email-change";
+import PatientInvitationEmail, { type PatientInvitationProps } from "@/emails/patient-invitation";
 import ConsentCopyEmail from "@/emails/consent-copy";
 import DepositReceiptEmail from "@/emails/deposit-receipt";
 import ReminderEmail from "@/emails/reminder";
@@ -13,6 +15,7 @@ import VisitMovedEmail from "@/emails/visit-moved";
 import VisitRequestedEmail from "@/emails/visit-requested";
 import type { VisitMailProps } from "@/emails/parts/visit-details";
 import { visitWhen } from "@/lib/domain/visit-when";
+import { emailTranslator } from "@/lib/i18n/email";
 import { renderEmail } from "@/lib/mail/render";
 
 const start = new Date("2027-03-15T14:00:00Z");
@@ -62,5 +65,51 @@ describe("visit e-mail templates", () => {
     const { html, text } = await renderEmail(createElement(SignInLinkEmail, { url: "https://portal.example/api/auth/callback/email?token=x" }));
     expect(html).toContain("https://portal.example/api/auth/callback/email?token=x");
     expect(text).toContain("dentist decides");
+  });
+});
+
+describe("patient account e-mails", () => {
+  const invitation: PatientInvitationProps = {
+    url: "https://portal.example/api/auth/callback/email?token=x", patientName: "Ines Testperson",
+    clinicName: "Harbourview Test Clinic", clinicAddress: "9 Pier Lane, Testport", clinicPhone: "+1 555 0100", hours: 72,
+  };
+
+  it("the invitation speaks English by default", async () => {
+    const { html, text } = await renderEmail(createElement(PatientInvitationEmail, invitation));
+    expect(html).toContain('lang="en"');
+    expect(text).toContain("Hello Ines Testperson");
+    expect(text).toContain("Open my Cuspal account");
+    expect(text).toContain("stops working after 72 hours");
+    expect(emailTranslator("en")("invitation.subject", { clinic: "Harbourview Test Clinic" })).toBe("Harbourview Test Clinic invites you to Cuspal");
+  });
+
+  it("the invitation to a French-speaking patient is French, subject included", async () => {
+    const t = emailTranslator("fr");
+    const { html, text } = await renderEmail(createElement(PatientInvitationEmail, { ...invitation, t }));
+    expect(html).toContain('lang="fr"');
+    expect(text).toContain("Harbourview Test Clinic vous a ouvert un compte Cuspal");
+    expect(text).toContain("Ouvrir mon compte Cuspal");
+    expect(text).toContain("cesse de fonctionner après 72 heures");
+    expect(html).toContain("https://portal.example/api/auth/callback/email?token=x");
+    const subject = t("invitation.subject", { clinic: "Harbourview Test Clinic" });
+    expect(subject).toBe("Harbourview Test Clinic vous invite sur Cuspal");
+    for (const english of ["invites you", "Open my Cuspal account", "Hello", "hours", "e-mail"]) {
+      expect(text, english).not.toContain(english);
+      expect(subject, english).not.toContain(english);
+    }
+  });
+
+  it("the e-mail-change link speaks the patient's language", async () => {
+    const url = "https://portal.example/api/me/email?token=abc";
+    const en = await renderEmail(createElement(EmailChangeEmail, { url, hours: 24 }));
+    expect(en.text).toContain("Use this address");
+    expect(en.text).toContain("expires in 24 hours");
+    const fr = await renderEmail(createElement(EmailChangeEmail, { url, hours: 24, t: emailTranslator("fr") }));
+    expect(fr.html).toContain('lang="fr"');
+    expect(fr.html).toContain(url);
+    expect(fr.text).toContain("Utiliser cette adresse");
+    expect(fr.text).toContain("expire dans 24 heures");
+    expect(fr.text).not.toContain("Use this address");
+    expect(emailTranslator("fr")("emailChange.subject")).toBe("Confirmez votre nouvelle adresse courriel pour Cuspal");
   });
 });

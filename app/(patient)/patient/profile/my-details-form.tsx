@@ -2,12 +2,15 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { CountryCode } from "libphonenumber-js";
+import { useTranslations } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
-import { LANGUAGE_NAMES, LANGUAGES, myDetailsFormSchema, type MyDetailsForm as Values, type MyDetailsFormInput } from "@/lib/domain/patient-record";
+import { LOCALE_NAMES } from "@/lib/i18n/locale";
+import { LANGUAGES, myDetailsFormSchema, type MyDetailsForm as Values, type MyDetailsFormInput } from "@/lib/domain/patient-record";
 
 export function MyDetailsForm({ country, initial, pendingEmail }: { country: CountryCode; initial: MyDetailsFormInput; pendingEmail: string | null }) {
+  const t = useTranslations("myDetails");
   const router = useRouter();
   const schema = useMemo(() => myDetailsFormSchema(country), [country]);
   const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
@@ -21,39 +24,39 @@ export function MyDetailsForm({ country, initial, pendingEmail }: { country: Cou
     const answer = await res.json().catch(() => ({}));
     if (!res.ok) {
       if (res.status === 400 && answer.field) setError(answer.field as keyof Values, { message: answer.error });
-      else setStatus({ ok: false, text: answer.error ?? "Something went wrong. Please try again." });
+      else setStatus({ ok: false, text: answer.error ?? t("failed") });
       return;
     }
-    setStatus({ ok: true, text: answer.emailPending ? "Saved. We sent a link to your new e-mail address: follow it to start using that address." : "Saved." });
+    setStatus({ ok: true, text: answer.emailPending ? t("savedEmailPending") : t("saved") });
     router.refresh();
   }
 
   return (
-    <form onSubmit={handleSubmit(submit)} noValidate className="space-y-4" aria-label="My details">
+    <form onSubmit={handleSubmit(submit)} noValidate className="space-y-4" aria-label={t("title")}>
       <div>
-        <label htmlFor="me-phone" className="field-label">Mobile phone</label>
+        <label htmlFor="me-phone" className="field-label">{t("phone")}</label>
         <input id="me-phone" type="tel" autoComplete="tel" className="field-input" aria-invalid={!!errors.phone} {...register("phone")} />
         {errors.phone ? <p className="field-error">{errors.phone.message}</p> : null}
       </div>
       <fieldset>
-        <legend className="field-label">Language</legend>
+        <legend className="field-label">{t("language")}</legend>
         <div className="flex gap-4">
           {LANGUAGES.map((l) => (
-            <label key={l} className="inline-flex min-h-11 items-center gap-2"><input type="radio" value={l} className="h-5 w-5" {...register("language")} /> {LANGUAGE_NAMES[l]}</label>
+            <label key={l} className="inline-flex min-h-11 items-center gap-2"><input type="radio" value={l} className="h-5 w-5" {...register("language")} /> <span lang={l}>{LOCALE_NAMES[l]}</span></label>
           ))}
         </div>
       </fieldset>
-      <label className="flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> E-mail me reminders before my visits</label>
+      <label className="flex min-h-11 items-center gap-2"><input type="checkbox" className="h-5 w-5" {...register("reminders")} /> {t("reminders")}</label>
       <div>
-        <label htmlFor="me-email" className="field-label">E-mail</label>
+        <label htmlFor="me-email" className="field-label">{t("email")}</label>
         <input id="me-email" type="email" autoComplete="email" className="field-input" aria-invalid={!!errors.email} aria-describedby="me-email-hint" {...register("email")} />
         <p id="me-email-hint" className="text-sm text-ink-muted">
-          {pendingEmail ? `Waiting for you to confirm ${pendingEmail} from the link we sent there.` : "A new address is used only after you follow the link we send to it."}
+          {pendingEmail ? t("emailPending", { email: pendingEmail }) : t("emailHint")}
         </p>
         {errors.email ? <p className="field-error">{errors.email.message}</p> : null}
       </div>
       {status ? <p role={status.ok ? "status" : "alert"} className={status.ok ? "text-sm text-harbour-700" : "text-sm text-clay-700"}>{status.text}</p> : null}
-      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={formState.isSubmitting}>Save</button>
+      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={formState.isSubmitting}>{t("save")}</button>
     </form>
   );
 }

@@ -1,36 +1,40 @@
 import type { Metadata } from "next";
 import type { CountryCode } from "libphonenumber-js";
+import { getTranslations } from "next-intl/server";
 import { requirePageUser } from "@/lib/auth/session";
 import { getMe } from "@/lib/data/me";
 import { displayPhone } from "@/lib/domain/patient-record";
 import { MyDetailsForm } from "./my-details-form";
 
-export const metadata: Metadata = { title: "My details" };
+export async function generateMetadata(): Promise<Metadata> {
+  return { title: (await getTranslations("myDetails"))("title") };
+}
 
-// Patient-facing sentences of this page, kept together for translation.
-const NOTICES: Record<string, { ok: boolean; text: string }> = {
-  "email-changed": { ok: true, text: "Your new e-mail address is confirmed. We write to it from now on." },
-  "email-link-expired": { ok: false, text: "That confirmation link has expired or was already used. Enter the new address again to get a fresh link." },
-  "email-taken": { ok: false, text: "That e-mail address is already used by another account, so your address was not changed." },
+// The notices the e-mail confirmation link comes back with, as catalogue keys.
+const NOTICES: Record<string, { ok: boolean; key: "noticeEmailChanged" | "noticeLinkExpired" | "noticeEmailTaken" }> = {
+  "email-changed": { ok: true, key: "noticeEmailChanged" },
+  "email-link-expired": { ok: false, key: "noticeLinkExpired" },
+  "email-taken": { ok: false, key: "noticeEmailTaken" },
 };
 
 export default async function ProfilePage({ searchParams }: { searchParams: Promise<{ notice?: string }> }) {
   const user = await requirePageUser(["patient"]);
   const me = await getMe({ user });
+  const t = await getTranslations("myDetails");
   const { notice } = await searchParams;
   const country = me.clinic.country as CountryCode;
   const shown = notice ? NOTICES[notice] : undefined;
   return (
     <div className="mx-auto max-w-read space-y-6">
-      <h1 className="text-2xl font-bold">My details</h1>
-      {shown ? <p role={shown.ok ? "status" : "alert"} className={`rounded-lg p-3 text-sm ${shown.ok ? "bg-harbour-50 text-harbour-700" : "bg-clay-50 text-clay-700"}`}>{shown.text}</p> : null}
-      <section className="card space-y-1 text-sm" aria-label="Held by your clinic">
-        <p><span className="text-ink-muted">Name:</span> {me.name}</p>
-        {me.dateOfBirth ? <p><span className="text-ink-muted">Date of birth:</span> {me.dateOfBirth}</p> : null}
-        {me.address ? <p className="whitespace-pre-line"><span className="text-ink-muted">Address:</span> {me.address}</p> : null}
-        <p className="text-ink-soft">To correct these, ask {me.clinic.name}.</p>
+      <h1 className="text-2xl font-bold">{t("title")}</h1>
+      {shown ? <p role={shown.ok ? "status" : "alert"} className={`rounded-lg p-3 text-sm ${shown.ok ? "bg-harbour-50 text-harbour-700" : "bg-clay-50 text-clay-700"}`}>{t(shown.key)}</p> : null}
+      <section className="card space-y-1 text-sm" aria-label={t("heldByClinic")}>
+        <p><span className="text-ink-muted">{t("name")}</span> {me.name}</p>
+        {me.dateOfBirth ? <p><span className="text-ink-muted">{t("dateOfBirth")}</span> {me.dateOfBirth}</p> : null}
+        {me.address ? <p className="whitespace-pre-line"><span className="text-ink-muted">{t("address")}</span> {me.address}</p> : null}
+        <p className="text-ink-soft">{t("askClinic", { clinic: me.clinic.name })}</p>
       </section>
-      <section className="card" aria-label="What you can change">
+      <section className="card" aria-label={t("canChange")}>
         <MyDetailsForm
           country={country}
           pendingEmail={me.pendingEmail}
@@ -38,12 +42,9 @@ export default async function ProfilePage({ searchParams }: { searchParams: Prom
         />
       </section>
       <section className="card space-y-2" aria-labelledby="records-heading">
-        <h2 id="records-heading" className="text-lg font-bold">Your records</h2>
-        <p className="text-ink-soft">
-          You have the right to a copy of the personal information your clinic holds about you. The download is a ZIP file with your details,
-          crown proposals, visits, consent records and e-mails as a JSON file, your signed consent PDFs and the documents in your account.
-        </p>
-        <a href="/api/me/export" className="btn-primary" download>Download my records</a>
+        <h2 id="records-heading" className="text-lg font-bold">{t("recordsHeading")}</h2>
+        <p className="text-ink-soft">{t("recordsBody")}</p>
+        <a href="/api/me/export" className="btn-primary" download>{t("downloadRecords")}</a>
       </section>
     </div>
   );
