@@ -49,7 +49,7 @@ export function MaterialTextsForm({ values }: { values: MaterialTextsInput }) {
                     {field === "name" ? (
                       <input id={id(key, field)} className="field-input" aria-invalid={!!e} aria-describedby={id(key, `${field}-hint`)} {...register(`${key}.${field}`)} />
                     ) : (
-                      <textarea id={id(key, field)} rows={field === "description" ? 4 : 3} className="field-input" aria-invalid={!!e} aria-describedby={id(key, `${field}-hint`)} {...register(`${key}.${field}`)} />
+                      <textarea id={id(key, field)} rows={4} className="field-input" aria-invalid={!!e} aria-describedby={id(key, `${field}-hint`)} {...register(`${key}.${field}`)} />
                     )}
                     <p id={id(key, `${field}-hint`)} className="text-xs text-ink-muted">{hint}</p>
                     {e ? <p className="field-error">{e}</p> : null}
