@@ -1,9 +1,13 @@
 // Data access for the clinic's material catalogue.
 import "server-only";
-import { Equipment, FurnaceProgramme, Material, MaterialMode, StageDuration } from "@/db/models";
+import { Equipment, FurnaceProgramme, Material, MaterialMode, sequelize, StageDuration } from "@/db/models";
+import type { SessionUser } from "@/lib/auth/session";
 import { capableFurnaces, ProgrammeUnavailable, withProgrammeMinutes } from "@/lib/domain/furnace-programmes";
 import { estimateTimeline, stagesFor, TimelineError } from "@/lib/domain/timeline";
+import { materialTextsSchema } from "@/lib/domain/material-text-schemas";
 import { TOOTH_CLASSES, type Mode, type ToothClass } from "@/lib/domain/types";
+import { recordAudit } from "@/lib/server/audit";
+import { forbidden, notFound } from "@/lib/server/errors";
 
 export async function listMaterials({ clinicId, activeOnly = true }: { clinicId: string; activeOnly?: boolean }) {
   const rows = await Material.findAll({
@@ -69,4 +73,48 @@ export async function materialEstimates({ clinicId }: { clinicId: string }): Pro
     }
   }
   return out;
+}
+
+/** Every material of the clinic (offered or not) with its patient-facing texts in English and French. */
+export async function listMaterialTexts({ clinicId }: { clinicId: string }) {
+  const rows = await Material.findAll({ where: { clinicId }, order: [["sortOrder", "ASC"]] });
+  return rows.map((m) => ({
+    id: m.id,
+    key: m.key,
+    active: m.active,
+    en: { name: m.name, description: m.description, pros: m.pros, cautions: m.cautions },
+    fr: m.translations?.fr ?? null,
+  }));
+}
+
+export type MaterialTextsActor = { user: SessionUser; ip?: string; userAgent?: string };
+
+/** Saves a material's English and French texts: the clinic manager of the material's clinic only
+ *  (another clinic's material is a 404), audited in the same transaction. */
+export async function saveMaterialTexts(actor: MaterialTextsActor, input: unknown) {
+  if (actor.user.role !== "admin" || !actor.user.clinicId) throw forbidden("Only the clinic manager can change material texts.");
+  const clinicId = actor.user.clinicId;
+  const value = materialTextsSchema.parse(input);
+  return sequelize.transaction(async (transaction) => {
+    const material = await Material.findOne({ where: { id: value.materialId, clinicId }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!material) throw notFound("That material");
+    const before = { en: { name: material.name, description: material.description, pros: material.pros, cautions: material.cautions }, fr: material.translations?.fr ?? null };
+    // A fresh object, so Sequelize sees the JSONB change; other languages kept as they were.
+    const translations = { ...(material.translations ?? {}), fr: value.fr };
+    await material.update({ ...value.en, translations }, { transaction });
+    await recordAudit(
+      {
+        clinicId,
+        actorUserId: actor.user.id,
+        action: "settings.material_texts",
+        subjectType: "material",
+        subjectId: material.id,
+        ip: actor.ip,
+        userAgent: actor.userAgent,
+        data: { material: material.key, before, after: { en: value.en, fr: value.fr } },
+      },
+      transaction,
+    );
+    return material.id;
+  });
 }

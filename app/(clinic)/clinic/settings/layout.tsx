@@ -9,6 +9,7 @@ const SECTIONS = [
   { href: "/clinic/settings/stage-times", label: "Estimated vs actual" },
   { href: "/clinic/settings/booking", label: "Booking and reminders" },
   { href: "/clinic/settings/payments", label: "Prices and deposit" },
+  { href: "/clinic/settings/materials", label: "Material texts" },
   { href: "/clinic/settings/staff", label: "Staff" },
   { href: "/clinic/settings/jurisdiction", label: "Jurisdiction" },
 ];
