@@ -9,6 +9,7 @@ import { confirmVisit } from "@/lib/booking/transitions";
 import { markStage } from "@/lib/data/progress";
 import { AppError } from "@/lib/server/errors";
 import { createTestClinic, createTestPatient, createTestProposal, createUser, type TestClinic } from "../support/fixtures";
+import { sessionOf } from "../support/session";
 
 const now = new Date("2027-03-01T12:00:00Z");
 const MIN = 60_000;
@@ -18,8 +19,7 @@ let t: TestClinic;
 let reception: SessionUser;
 let dentist: SessionUser;
 let otherDentistId: string;
-const asUser = (u: { id: string; email: string; name: string | null; role: SessionUser["role"]; clinicId: string | null }): SessionUser =>
-  ({ id: u.id, email: u.email, name: u.name, role: u.role, clinicId: u.clinicId });
+const asUser = sessionOf;
 
 beforeAll(async () => {
   // One mill, so the mill is what a late milling takes from others; two chairs and furnaces.
