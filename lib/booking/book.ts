@@ -9,11 +9,13 @@ import type { SessionUser } from "@/lib/auth/session";
 import { assign, holdsFor, isCandidateStart, nearest, type AvailabilityRules } from "@/lib/domain/availability";
 import type { Timeline } from "@/lib/domain/timeline";
 import { addDays, isoInZone, localDate } from "@/lib/domain/time-zone";
+import { fromFdi } from "@/lib/domain/tooth";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
 import { askDeposit } from "@/lib/payments/deposits";
 import { recordAudit } from "@/lib/server/audit";
 import { AppError, badRequest, conflict, notFound } from "@/lib/server/errors";
-import { loadBusy, loadResources, loadRules, loadTimeline } from "./context";
+import { loadBusy, loadResources, loadRules, loadTimeline, readClinic } from "./context";
+import { sharedAlternatives } from "./alternatives";
 import { writeSchedule } from "./schedule";
 import { searchSlots } from "./search";
 import "@/lib/mail/hooks";
@@ -56,10 +58,14 @@ async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Tim
   return { assignment, rules };
 }
 
+/** The nearest free times to `wanted`, shared by every request that lost the same race. */
 async function alternatives(proposal: Proposal, materialId: string, mode: Mode, wanted: Date, zone: string, now: Date, excludeAppointmentId?: string) {
-  const day = localDate(wanted, zone);
-  const { slots } = await searchSlots({ proposal, materialId, mode, from: addDays(day, -3), days: 7, now, excludeAppointmentId });
-  return nearest(slots, wanted, 3).map((s) => ({ start: isoInZone(s.start, zone), end: isoInZone(s.end, zone) }));
+  const key = [proposal.clinicId, proposal.dentistId, materialId, mode, fromFdi(proposal.tooth).toothClass, wanted.toISOString(), excludeAppointmentId ?? ""].join(" ");
+  return sharedAlternatives(key, async (transaction) => {
+    const day = localDate(wanted, zone);
+    const { slots } = await searchSlots({ proposal, materialId, mode, from: addDays(day, -3), days: 7, now, excludeAppointmentId, transaction });
+    return nearest(slots, wanted, 3).map((s) => ({ start: isoInZone(s.start, zone), end: isoInZone(s.end, zone) }));
+  });
 }
 
 // Lost races between concurrent bookings: an overlapping reservation (23P01), or PostgreSQL
@@ -80,9 +86,9 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
   const p = proposal!;
   if (p.status !== "open") throw conflict("This proposal is closed: ask the clinic for a new one.");
   const option = allowedOption(p, opts.materialId, opts.mode);
-  const clinic = (await Clinic.findByPk(p.clinicId))!;
-  const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
-  assertBookableTime(await loadRules(clinic), timeline, opts.start, now);
+  const [clinic, setup] = await Promise.all([Clinic.findByPk(p.clinicId).then((c) => c!), readClinic(p.clinicId).then((c) => c!)]);
+  const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, clinic: setup, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
+  assertBookableTime(await loadRules(setup), timeline, opts.start, now);
 
   for (let attempt = 1; ; attempt++) {
     try {
