@@ -50,15 +50,14 @@ export async function readClinic(clinicId: string, transaction?: Transaction): P
 
 async function fetchSettings(clinicId: string, transaction?: Transaction): Promise<SchedulingSettings> {
   const q = <T extends object>(sql: string) => sequelize.query<T>(sql, { replacements: { clinicId }, type: QueryTypes.SELECT, transaction });
-  const [hours, closed, equipment, stageMinutes, materials, modes, programmes] = await Promise.all([
-    q<SchedulingSettings["hours"][number]>(`SELECT weekday, opens::text, closes::text FROM opening_hours WHERE clinic_id = :clinicId`),
-    q<{ day: string }>(`SELECT day::text AS day FROM closed_days WHERE clinic_id = :clinicId`),
-    q<SchedulingSettings["equipment"][number]>(`SELECT id, kind FROM equipment WHERE clinic_id = :clinicId AND active ORDER BY name`),
-    q<SchedulingSettings["stageMinutes"][number]>(`SELECT stage, tooth_class AS "toothClass", minutes FROM stage_durations WHERE clinic_id = :clinicId`),
-    Material.findAll({ where: { clinicId }, raw: true, transaction }),
-    MaterialMode.findAll({ include: [{ model: Material, as: "material", attributes: [], where: { clinicId }, required: true }], raw: true, transaction }),
-    FurnaceProgramme.findAll({ where: { clinicId }, raw: true, transaction }),
-  ]);
+  // One after another: a transaction has one connection, and a miss is rare enough.
+  const hours = await q<SchedulingSettings["hours"][number]>(`SELECT weekday, opens::text, closes::text FROM opening_hours WHERE clinic_id = :clinicId`);
+  const closed = await q<{ day: string }>(`SELECT day::text AS day FROM closed_days WHERE clinic_id = :clinicId`);
+  const equipment = await q<SchedulingSettings["equipment"][number]>(`SELECT id, kind FROM equipment WHERE clinic_id = :clinicId AND active ORDER BY name`);
+  const stageMinutes = await q<SchedulingSettings["stageMinutes"][number]>(`SELECT stage, tooth_class AS "toothClass", minutes FROM stage_durations WHERE clinic_id = :clinicId`);
+  const materials = await Material.findAll({ where: { clinicId }, raw: true, transaction });
+  const modes = await MaterialMode.findAll({ include: [{ model: Material, as: "material", attributes: [], where: { clinicId }, required: true }], raw: true, transaction });
+  const programmes = await FurnaceProgramme.findAll({ where: { clinicId }, raw: true, transaction });
   return {
     hours: hours.map((h) => ({ weekday: h.weekday, opens: h.opens.slice(0, 5), closes: h.closes.slice(0, 5) })),
     closedDays: closed.map((c) => c.day),
