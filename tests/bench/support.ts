@@ -1,6 +1,7 @@
 // Benchmark plumbing: a private database, a private app server, and signed session cookies.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, readdirSync, readFileSync } from "node:fs";
+import { performance } from "node:perf_hooks";
 import path from "node:path";
 import pg from "pg";
 import { encode } from "next-auth/jwt";
@@ -64,8 +65,9 @@ export function stopApp(child: ChildProcess) {
 }
 
 /** A next-auth session cookie for a user, signed with the bench secret (what sign-in would set). */
-export async function sessionCookie(user: { id: string; email: string; name: string | null; role: string; clinicId: string | null }, secret: string) {
-  const token = await encode({ token: { sub: user.id, email: user.email, name: user.name, role: user.role as never, clinicId: user.clinicId }, secret });
+export async function sessionCookie(user: { id: string; email: string; name: string | null; role: string; clinicId: string | null; sessionVersion?: number }, secret: string) {
+  // With the session version and sign-in time the per-request account check looks for.
+  const token = await encode({ token: { sub: user.id, email: user.email, name: user.name, role: user.role as never, clinicId: user.clinicId, sv: user.sessionVersion ?? 1, authAt: Math.floor(Date.now() / 1000) }, secret });
   return `next-auth.session-token=${token}`;
 }
 
@@ -76,3 +78,38 @@ export function stats(samples: number[]) {
 }
 
 export const ms = (n: number) => `${n.toFixed(1)} ms`;
+
+/** Requests answered per second by `callers` concurrent callers, each asking again as soon as answered. */
+export async function throughput(url: string, init: RequestInit, callers: number, seconds: number) {
+  const until = performance.now() + seconds * 1000;
+  let done = 0;
+  let failed = 0;
+  const t0 = performance.now();
+  await Promise.all(Array.from({ length: callers }, async () => {
+    while (performance.now() < until) {
+      const res = await fetch(url, init);
+      await res.arrayBuffer();
+      if (res.ok) done++;
+      else failed++;
+    }
+  }));
+  if (failed) throw new Error(`${failed} requests to ${url} failed during the load`);
+  return done / ((performance.now() - t0) / 1000);
+}
+
+/** Resident memory (VmRSS, MB) of each process of the app server's process group, largest first. */
+export function serverMemory(child: ChildProcess): { pid: number; rssMb: number }[] {
+  const out: { pid: number; rssMb: number }[] = [];
+  for (const entry of readdirSync("/proc")) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      // Field 5 of /proc/<pid>/stat is the process group; the command name (field 2) may hold spaces.
+      const stat = readFileSync(`/proc/${entry}/stat`, "utf8");
+      const pgid = Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[2]);
+      if (pgid !== child.pid) continue;
+      const rss = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${entry}/status`, "utf8"));
+      if (rss) out.push({ pid: Number(entry), rssMb: Number(rss[1]) / 1024 });
+    } catch { /* gone meanwhile */ }
+  }
+  return out.sort((a, b) => b.rssMb - a.rssMb);
+}
