@@ -12,7 +12,8 @@ import { addDays, localDate, zonedTime } from "@/lib/domain/time-zone";
 import { benchEnv, freshDatabase, ms, run, serverMemory, sessionCookie, startApp, stats, stopApp, throughput } from "./support";
 
 const DB = "cuspal_bench";
-const PORT = 3290;
+// CUSPAL_TEST_PORT_OFFSET moves the port, as it does for `npm test`.
+const PORT = 3290 + Number(process.env.CUSPAL_TEST_PORT_OFFSET ?? 0);
 const MIN = 60_000;
 
 async function seedBenchClinic() {

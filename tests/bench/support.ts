@@ -50,6 +50,9 @@ export async function startApp(env: NodeJS.ProcessEnv, port: number): Promise<Ch
   if (!existsSync(path.join(root, ".next-bench", "BUILD_ID")) || process.env.BENCH_REBUILD === "1") {
     run(path.join(root, "node_modules/.bin/next"), ["build"], env);
   }
+  // Never measure another program that happens to answer on the port.
+  const taken = await fetch(`http://localhost:${port}/`).then(() => true, () => false);
+  if (taken) throw new Error(`Port ${port} is taken by another program; set CUSPAL_TEST_PORT_OFFSET to move the benchmark's port.`);
   const child = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", String(port)], { cwd: root, env, stdio: "ignore", detached: true });
   for (let i = 0; i < 150; i++) {
     try {
