@@ -40,9 +40,10 @@ function assertBookableTime(rules: AvailabilityRules, timeline: Timeline, start:
 }
 
 async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
-  const rules = await loadRules(opts.clinic, opts.transaction);
+  const setup = (await readClinic(opts.clinic.id, opts.transaction))!;
+  const rules = await loadRules(setup, opts.transaction);
   assertBookableTime(rules, opts.timeline, opts.start, opts.now);
-  const all = await loadResources(opts.clinic.id, opts.proposal.dentistId, opts.transaction);
+  const all = await loadResources(setup, opts.proposal.dentistId, opts.transaction);
   // Only furnaces able to run the visit's firing programmes.
   const resources = opts.furnaceIds ? { ...all, furnace: all.furnace.filter((id) => opts.furnaceIds!.includes(id)) } : all;
   const busy = await loadBusy({

@@ -5,10 +5,10 @@
 // they are kept in memory per clinic under the clinic's `settings_version`. Database triggers bump
 // that version in the same transaction as every write to those tables (migration 0016); each use
 // reads the clinic row and its version first, so a copy is used only while it is current, whichever
-// app instance made the change. Inside a transaction the settings are read afresh (the transaction
-// may itself have changed them).
-import { Op, QueryTypes, type Attributes, type Transaction } from "sequelize";
-import { EquipmentOutage, FurnaceProgramme, Material, MaterialMode, Reservation, sequelize } from "@/db/models";
+// app instance made the change. What a transaction reads is never kept (it may be its own,
+// uncommitted change).
+import { QueryTypes, type Attributes, type Transaction } from "sequelize";
+import { FurnaceProgramme, Material, MaterialMode, sequelize } from "@/db/models";
 import type { ClinicSettingsJson } from "@/db/models/clinic";
 import { capableFurnaces, ProgrammeUnavailable, withProgrammeMinutes, type FurnaceProgrammeRow } from "@/lib/domain/furnace-programmes";
 import { BusyIndex, type AvailabilityRules, type Resources } from "@/lib/domain/availability";
@@ -71,10 +71,13 @@ async function fetchSettings(clinicId: string, transaction?: Transaction): Promi
 
 /** The clinic's scheduling settings, from memory while its settings version has not moved. */
 async function settingsOf(clinic: ClinicRow, transaction?: Transaction): Promise<SchedulingSettings> {
-  if (transaction || clinic.settingsVersion === undefined) return fetchSettings(clinic.id, transaction);
+  if (clinic.settingsVersion === undefined) return fetchSettings(clinic.id, transaction);
   const version = BigInt(clinic.settingsVersion);
   const hit = cached.get(clinic.id);
   if (hit && hit.version === version) return hit.settings;
+  // A transaction may see its own, uncommitted settings: used, never kept. (A copy kept from
+  // committed data can serve it: a transaction that wrote settings holds a version no one else has.)
+  if (transaction) return fetchSettings(clinic.id, transaction);
   // Read after the version, so what is stored is at least as new as the version it is filed under.
   const settings = fetchSettings(clinic.id);
   if (!hit || hit.version < version) {
@@ -144,28 +147,27 @@ export async function loadResources(clinic: ClinicRow | string, dentistId: strin
   return { chair: ids("chair"), mill: ids("mill"), furnace: ids("furnace"), dentist: [dentistId] };
 }
 
-/** Active reservations and out-of-service ranges of the clinic's resources between two instants. */
+/** Active reservations and out-of-service ranges of the clinic's resources between two instants,
+ *  read as plain numbers (thousands of rows on a busy fortnight: no model instances, no range parsing). */
 export async function loadBusy(opts: { clinicId: string; resources: Resources; from: Date; to: Date; excludeAppointmentId?: string; transaction?: Transaction }): Promise<BusyIndex> {
   const ids = Object.values(opts.resources).flat();
-  const range = [opts.from, opts.to];
-  const [reservations, outages] = await Promise.all([
-    Reservation.findAll({
-      where: {
-        resourceId: { [Op.in]: ids },
-        active: true,
-        during: { [Op.overlap]: range },
-        ...(opts.excludeAppointmentId ? { appointmentId: { [Op.ne]: opts.excludeAppointmentId } } : {}),
-      } as never,
-      transaction: opts.transaction,
-    }),
-    EquipmentOutage.findAll({ where: { equipmentId: { [Op.in]: ids }, during: { [Op.overlap]: range } } as never, transaction: opts.transaction }),
-  ]);
-  const toInterval = (during: unknown) => {
-    const [a, b] = during as [{ value: Date | string | null }, { value: Date | string | null }];
-    return { start: a.value ? new Date(a.value).getTime() : -Infinity, end: b.value ? new Date(b.value).getTime() : Infinity };
-  };
-  return new BusyIndex([
-    ...reservations.map((r) => ({ resourceId: r.resourceId, ...toInterval(r.during) })),
-    ...outages.map((o) => ({ resourceId: o.equipmentId, ...toInterval(o.during) })),
-  ]);
+  if (!ids.length) return new BusyIndex([]);
+  const replacements = { ids, from: opts.from, to: opts.to, exclude: opts.excludeAppointmentId ?? null };
+  // Milliseconds since 1970; an open end is null (unbounded).
+  const ends = `extract(epoch FROM lower(during)) * 1000 AS start, extract(epoch FROM upper(during)) * 1000 AS "end"`;
+  type Row = { resourceId: string; start: number | string | null; end: number | string | null };
+  const rows = await sequelize.query<Row>(
+    `SELECT resource_id AS "resourceId", ${ends} FROM reservations
+      WHERE resource_id IN (:ids) AND active AND during && tstzrange(:from, :to)
+        AND (CAST(:exclude AS uuid) IS NULL OR appointment_id IS DISTINCT FROM CAST(:exclude AS uuid))
+     UNION ALL
+     SELECT equipment_id, ${ends} FROM equipment_outages
+      WHERE equipment_id IN (:ids) AND during && tstzrange(:from, :to)`,
+    { replacements, type: QueryTypes.SELECT, transaction: opts.transaction },
+  );
+  return new BusyIndex(rows.map((r) => ({
+    resourceId: r.resourceId,
+    start: r.start === null ? -Infinity : Number(r.start),
+    end: r.end === null ? Infinity : Number(r.end),
+  })));
 }
