@@ -1,22 +1,66 @@
-// Clinic-local wall-clock times ⇄ instants, through dayjs's time-zone plugin (Intl data underneath).
-import dayjs from "dayjs";
-import timezone from "dayjs/plugin/timezone";
-import utc from "dayjs/plugin/utc";
+// Clinic-local wall-clock times ⇄ instants, from the Intl time-zone data. One formatter per zone is
+// made once and reused: a formatter is costly to build, and a search converts hundreds of instants.
 
-dayjs.extend(utc);
-dayjs.extend(timezone);
+type Wall = { year: number; month: number; day: number; hour: number; minute: number; second: number };
 
-/** The instant of a wall-clock time ("YYYY-MM-DD", "HH:MM[:SS]") in an IANA zone. */
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
+function formatterFor(zone: string): Intl.DateTimeFormat {
+  let f = formatters.get(zone);
+  if (!f) {
+    f = new Intl.DateTimeFormat("en-US", {
+      timeZone: zone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit",
+    });
+    formatters.set(zone, f);
+  }
+  return f;
+}
+
+/** The wall-clock reading of an instant in a zone. */
+function wallAt(ms: number, zone: string): Wall {
+  const w: Wall = { year: 0, month: 0, day: 0, hour: 0, minute: 0, second: 0 };
+  for (const part of formatterFor(zone).formatToParts(ms)) {
+    if (part.type in w) w[part.type as keyof Wall] = Number(part.value);
+  }
+  if (w.hour === 24) w.hour = 0;
+  return w;
+}
+
+/** The zone's offset from UTC at an instant, in minutes (east positive). */
+function offsetAt(ms: number, zone: string): number {
+  const w = wallAt(ms, zone);
+  const whole = ms - (((ms % 1000) + 1000) % 1000);
+  return (Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) - whole) / 60_000;
+}
+
+const pad = (n: number, width = 2) => String(n).padStart(width, "0");
+
+/** The instant of a wall-clock time ("YYYY-MM-DD", "HH:MM[:SS]") in an IANA zone. A time skipped by
+ *  a change to summer time lands after the change; a time that occurs twice takes the instant the
+ *  zone's offset at that wall time (read as UTC) gives, whatever today's date. */
 export function zonedTime(date: string, time: string, zone: string): Date {
-  return dayjs.tz(`${date} ${time.slice(0, 5)}`, "YYYY-MM-DD HH:mm", zone).toDate();
+  const [y, mo, d] = date.split("-").map(Number);
+  const [h, mi] = time.slice(0, 5).split(":").map(Number);
+  const local = Date.UTC(y, mo - 1, d, h, mi);
+  // Guess with the offset at the wall time read as UTC, then correct once or twice.
+  const o0 = offsetAt(local, zone);
+  let guess = local - o0 * 60_000;
+  const o2 = offsetAt(guess, zone);
+  if (o0 === o2) return new Date(guess);
+  guess -= (o2 - o0) * 60_000;
+  const o3 = offsetAt(guess, zone);
+  if (o2 === o3) return new Date(guess);
+  return new Date(local - Math.min(o2, o3) * 60_000);
 }
 
 export function localDate(instant: Date, zone: string): string {
-  return dayjs(instant).tz(zone).format("YYYY-MM-DD");
+  const w = wallAt(instant.getTime(), zone);
+  return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}`;
 }
 
 export function localTime(instant: Date, zone: string): string {
-  return dayjs(instant).tz(zone).format("HH:mm");
+  const w = wallAt(instant.getTime(), zone);
+  return `${pad(w.hour)}:${pad(w.minute)}`;
 }
 
 /** 0 = Sunday … 6 = Saturday, for a calendar date (independent of zone). */
@@ -32,7 +76,11 @@ export function addDays(date: string, days: number): string {
 
 /** ISO 8601 with the zone's offset at that instant, e.g. 2027-03-15T08:00:00-04:00. */
 export function isoInZone(instant: Date, zone: string): string {
-  return dayjs(instant).tz(zone).format("YYYY-MM-DDTHH:mm:ssZ");
+  const ms = instant.getTime();
+  const w = wallAt(ms, zone);
+  const offset = offsetAt(ms, zone);
+  const sign = offset < 0 ? "-" : "+";
+  return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}T${pad(w.hour)}:${pad(w.minute)}:${pad(w.second)}${sign}${pad(Math.floor(Math.abs(offset) / 60))}:${pad(Math.abs(offset) % 60)}`;
 }
 
 export function isValidZone(zone: string): boolean {
