@@ -2,9 +2,8 @@
 // window, all in one transaction. PostgreSQL's exclusion constraint on reservations is the final
 // guard against double booking: of two concurrent requests for the same resources, one fails.
 import { Op, UniqueConstraintError, ExclusionConstraintError, type Transaction } from "sequelize";
-import { Appointment, AppointmentStage, Clinic, Patient, Proposal, ProposalMaterial, Reservation, sequelize } from "@/db/models";
-import { assertCanSee } from "@/lib/data/access";
-import { allowedOption } from "@/lib/data/proposals";
+import { Appointment, AppointmentStage, Clinic, Patient, Proposal, Reservation, sequelize } from "@/db/models";
+import { allowedOption, getBookableProposal } from "@/lib/data/proposals";
 import type { SessionUser } from "@/lib/auth/session";
 import { assign, holdsFor, isCandidateStart, nearest, type AvailabilityRules } from "@/lib/domain/availability";
 import type { Timeline } from "@/lib/domain/timeline";
@@ -39,7 +38,7 @@ function assertBookableTime(rules: AvailabilityRules, timeline: Timeline, start:
   }
 }
 
-async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
+async function placeAt(opts: { clinic: Clinic; proposal: Pick<Proposal, "dentistId">; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
   const setup = (await readClinic(opts.clinic.id, opts.transaction))!;
   const rules = await loadRules(setup, opts.transaction);
   assertBookableTime(rules, opts.timeline, opts.start, opts.now);
@@ -60,7 +59,7 @@ async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Tim
 }
 
 /** The nearest free times to `wanted`, shared by every request that lost the same race. */
-async function alternatives(proposal: Proposal, materialId: string, mode: Mode, wanted: Date, zone: string, now: Date, excludeAppointmentId?: string) {
+async function alternatives(proposal: Pick<Proposal, "clinicId" | "dentistId" | "tooth">, materialId: string, mode: Mode, wanted: Date, zone: string, now: Date, excludeAppointmentId?: string) {
   const key = [proposal.clinicId, proposal.dentistId, materialId, mode, fromFdi(proposal.tooth).toothClass, wanted.toISOString(), excludeAppointmentId ?? ""].join(" ");
   return sharedAlternatives(key, async (transaction) => {
     const day = localDate(wanted, zone);
@@ -81,10 +80,8 @@ function isRaceLoss(err: unknown) {
 export async function bookVisit(opts: { proposalId: string; materialId: string; mode: Mode; start: Date; actor: Actor; now?: Date }) {
   const { actor } = opts;
   const now = opts.now ?? new Date();
-  const proposal = await Proposal.findByPk(opts.proposalId, { include: [{ model: ProposalMaterial, as: "options", include: ["material"] }] });
   // Patients reach only their own proposals; staff only their clinic's. Others get 404.
-  await assertCanSee(actor.user, proposal, "That proposal");
-  const p = proposal!;
+  const p = await getBookableProposal({ user: actor.user, id: opts.proposalId });
   if (p.status !== "open") throw conflict("This proposal is closed: ask the clinic for a new one.");
   const option = allowedOption(p, opts.materialId, opts.mode);
   const [clinic, setup] = await Promise.all([Clinic.findByPk(p.clinicId).then((c) => c!), readClinic(p.clinicId).then((c) => c!)]);

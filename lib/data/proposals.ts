@@ -63,7 +63,7 @@ export async function getProposal({ user, id }: { user: SessionUser; id: string 
   return { row: row!, view: toView(row!, active.get(row!.id) ?? null) };
 }
 
-type OptionLike = { materialId: string; modes: Mode[]; material?: { name: string } | null };
+type OptionLike = { materialId: string; modes: Mode[]; feeCents?: number | null; material?: { name: string } | null };
 
 /** The proposal's allowed material and mode, or a clear 4xx. */
 export function allowedOption<O extends OptionLike>(row: { options?: O[] }, materialId: string, mode: Mode): O {
@@ -79,6 +79,7 @@ export type BookableProposal = {
   patientId: string;
   dentistId: string;
   tooth: number;
+  feeCents: number;
   status: string;
   options: OptionLike[];
 };
@@ -91,9 +92,9 @@ export type BookableProposal = {
 export async function getBookableProposal({ user, id }: { user: SessionUser; id: string }): Promise<BookableProposal> {
   const [row] = /^[0-9a-f-]{36}$/i.test(id)
     ? await sequelize.query<BookableProposal & { patientUserId: string }>(
-        `SELECT p.id, p.clinic_id AS "clinicId", p.patient_id AS "patientId", p.dentist_id AS "dentistId", p.tooth, p.status,
+        `SELECT p.id, p.clinic_id AS "clinicId", p.patient_id AS "patientId", p.dentist_id AS "dentistId", p.tooth, p.fee_cents AS "feeCents", p.status,
                 pat.user_id AS "patientUserId",
-                coalesce(json_agg(json_build_object('materialId', pm.material_id, 'modes', pm.modes, 'material', json_build_object('name', m.name)))
+                coalesce(json_agg(json_build_object('materialId', pm.material_id, 'modes', pm.modes, 'feeCents', pm.fee_cents, 'material', json_build_object('name', m.name)))
                   FILTER (WHERE pm.material_id IS NOT NULL), '[]') AS options
            FROM proposals p
            JOIN patients pat ON pat.id = p.patient_id
@@ -106,7 +107,7 @@ export async function getBookableProposal({ user, id }: { user: SessionUser; id:
     : [];
   const visible = row && (user.role === "patient" ? row.patientUserId === user.id : row.clinicId === user.clinicId);
   if (!visible) throw notFound("That proposal");
-  return { id: row.id, clinicId: row.clinicId, patientId: row.patientId, dentistId: row.dentistId, tooth: row.tooth, status: row.status, options: row.options };
+  return { id: row.id, clinicId: row.clinicId, patientId: row.patientId, dentistId: row.dentistId, tooth: row.tooth, feeCents: row.feeCents, status: row.status, options: row.options };
 }
 
 /** The dentist who proposes: a dentist proposes as themself; a manager must name an active dentist of the clinic. */

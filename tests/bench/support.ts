@@ -71,7 +71,9 @@ export async function startApp(env: NodeJS.ProcessEnv, port: number): Promise<Ch
   // Never measure another program that happens to answer on the port.
   const taken = await fetch(`http://localhost:${port}/`).then(() => true, () => false);
   if (taken) throw new Error(`Port ${port} is taken by another program; set CUSPAL_TEST_PORT_OFFSET to move the benchmark's port.`);
-  const child = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", String(port)], { cwd: root, env, stdio: "ignore", detached: true });
+  // BENCH_CPU_PROF=<dir> writes a CPU profile of the app server there when it stops (open it in Chrome's DevTools).
+  const profile = process.env.BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${path.resolve(process.env.BENCH_CPU_PROF)}`] : [];
+  const child = spawn(process.execPath, [...profile, path.join(root, "node_modules/next/dist/bin/next"), "start", "-p", String(port)], { cwd: root, env, stdio: "ignore", detached: true });
   for (let i = 0; i < 150; i++) {
     try {
       if ((await fetch(`http://localhost:${port}/api/health`)).ok) return child;
