@@ -35,6 +35,9 @@ function offsetAt(ms: number, zone: string): number {
 
 const pad = (n: number, width = 2) => String(n).padStart(width, "0");
 
+// What an invalid date reads as, as before (dayjs's wording): callers show or compare it, never crash.
+const INVALID = "Invalid Date";
+
 /** The instant of a wall-clock time ("YYYY-MM-DD", "HH:MM[:SS]") in an IANA zone. A time skipped by
  *  a change to summer time lands after the change; a time that occurs twice takes the instant the
  *  zone's offset at that wall time (read as UTC) gives, whatever today's date. */
@@ -54,11 +57,13 @@ export function zonedTime(date: string, time: string, zone: string): Date {
 }
 
 export function localDate(instant: Date, zone: string): string {
+  if (Number.isNaN(instant.getTime())) return INVALID;
   const w = wallAt(instant.getTime(), zone);
   return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}`;
 }
 
 export function localTime(instant: Date, zone: string): string {
+  if (Number.isNaN(instant.getTime())) return INVALID;
   const w = wallAt(instant.getTime(), zone);
   return `${pad(w.hour)}:${pad(w.minute)}`;
 }
@@ -77,6 +82,7 @@ export function addDays(date: string, days: number): string {
 /** ISO 8601 with the zone's offset at that instant, e.g. 2027-03-15T08:00:00-04:00. */
 export function isoInZone(instant: Date, zone: string): string {
   const ms = instant.getTime();
+  if (Number.isNaN(ms)) return INVALID;
   const w = wallAt(ms, zone);
   const offset = offsetAt(ms, zone);
   const sign = offset < 0 ? "-" : "+";

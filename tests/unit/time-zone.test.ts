@@ -47,6 +47,14 @@ describe("time zones", () => {
     expect(compared).toBeGreaterThan(ZONES.length * 240 * 5);
   });
 
+  it("reads an invalid date as dayjs did, without throwing", () => {
+    const bad = new Date(NaN);
+    // [C] reference: dayjs 1.11 formats an invalid date as "Invalid Date"
+    expect(isoInZone(bad, "America/Toronto")).toBe(dayjs(bad).tz("America/Toronto").format("YYYY-MM-DDTHH:mm:ssZ"));
+    expect(localDate(bad, "America/Toronto")).toBe("Invalid Date");
+    expect(localTime(bad, "America/Toronto")).toBe("Invalid Date");
+  });
+
   it("gives a time skipped by the change to summer time an instant after the change", () => {
     // [M] from memory: in 2027 Toronto moves from 02:00 EST to 03:00 EDT on 14 March (second Sunday of March).
     const at = zonedTime("2027-03-14", "02:30", "America/Toronto");
