@@ -26,12 +26,13 @@ function wallAt(ms: number, zone: string): Wall {
   return w;
 }
 
-/** The zone's offset from UTC at an instant, in minutes (east positive). */
-function offsetAt(ms: number, zone: string): number {
-  const w = wallAt(ms, zone);
+/** The zone's offset from UTC at an instant, in minutes (east positive), from its wall reading. */
+function offsetOf(ms: number, w: Wall): number {
   const whole = ms - (((ms % 1000) + 1000) % 1000);
   return (Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) - whole) / 60_000;
 }
+
+const offsetAt = (ms: number, zone: string) => offsetOf(ms, wallAt(ms, zone));
 
 const pad = (n: number, width = 2) => String(n).padStart(width, "0");
 
@@ -84,7 +85,7 @@ export function isoInZone(instant: Date, zone: string): string {
   const ms = instant.getTime();
   if (Number.isNaN(ms)) return INVALID;
   const w = wallAt(ms, zone);
-  const offset = offsetAt(ms, zone);
+  const offset = offsetOf(ms, w);
   const sign = offset < 0 ? "-" : "+";
   return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}T${pad(w.hour)}:${pad(w.minute)}:${pad(w.second)}${sign}${pad(Math.floor(Math.abs(offset) / 60))}:${pad(Math.abs(offset) % 60)}`;
 }
