@@ -1,7 +1,7 @@
 // `npm run demo`: everything a fresh machine needs to show Cuspal with its invented demo clinic.
 import { spawn } from "node:child_process";
 import {
-  appEnv, appServerCommand, bin, ensureDatabases, ensureDependencies, ensurePostgres, mustRun, root, say,
+  appEnv, appServerCommand, bin, buildWorker, ensureDatabases, ensureDependencies, ensurePostgres, mustRun, root, say,
   startMailCatcher, startPaymentFake, startService, startStorage,
 } from "./lib.mjs";
 
@@ -22,7 +22,7 @@ mustRun(bin("tsx"), ["db/seed.ts"], { env });
 await startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort });
 await startStorage({ port: ports.s3Port, keys: env });
 await startPaymentFake({ port: ports.paymentPort, env });
-await startService("worker", bin("tsx"), ["lib/jobs/worker-main.ts"], { env });
+await startService("worker", process.execPath, [buildWorker()], { env });
 
 say("Building the app…");
 mustRun(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } });

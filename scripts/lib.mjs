@@ -277,6 +277,20 @@ export function bin(name) {
   return path.join(root, "node_modules", ".bin", name);
 }
 
+/**
+ * Compiles the background worker (lib/jobs/worker-main.ts, with the `@/` paths resolved) into
+ * .data/build/worker.cjs, which plain `node` runs: no TypeScript transpiler stays in memory beside
+ * it. npm packages stay outside the bundle and load from node_modules. Returns the file's path.
+ */
+export function buildWorker() {
+  const out = path.join(root, ".data", "build", "worker.cjs");
+  mustRun(bin("esbuild"), [
+    "lib/jobs/worker-main.ts", "--bundle", "--platform=node", "--target=node20", "--format=cjs",
+    "--packages=external", `--outfile=${out}`, "--log-level=warning",
+  ], {}, "Compiling the worker");
+  return out;
+}
+
 /** Environment shared by the app, the worker and the scripts for one set-up (demo or test). */
 // DATABASE_URL is the app's (and the worker's) connection; OWNER_DATABASE_URL the one migrations and
 // the seed use. Someone with their own PostgreSQL sets DATABASE_URL (and OWNER_DATABASE_URL when

@@ -4,7 +4,7 @@
 import { existsSync, readFileSync, rmSync, mkdirSync } from "node:fs";
 import path from "node:path";
 import {
-  appEnv, bin, dataDir, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, ensureSealValidators, mustRun,
+  appEnv, bin, buildWorker, dataDir, ensureChromium, ensureDatabases, ensureDependencies, ensurePostgres, ensureSealValidators, mustRun,
   run, say, startMailCatcher, startPaymentFake, startService, startStorage, stopPostgres, stopService,
 } from "./lib.mjs";
 
@@ -67,7 +67,7 @@ try {
     say("Loading the demo clinic into the test database…");
     if (run(bin("tsx"), ["db/seed.ts", "--reset"], { env }) !== 0) throw new Error("Loading the demo clinic failed.");
     // The worker sends the e-mail the browser tests cause (confirmations, reminders), as in the demo.
-    await startService("test-worker", bin("tsx"), ["lib/jobs/worker-main.ts"], { env });
+    await startService("test-worker", process.execPath, [buildWorker()], { env });
     say("Building the app for the browser tests…");
     if (run(bin("next"), ["build"], { env: { ...env, NODE_ENV: "production" } }) !== 0) {
       throw new Error("next build failed; see its output above.");

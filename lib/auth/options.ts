@@ -52,6 +52,11 @@ export function sessionProblem(token: JWT, state: Awaited<ReturnType<typeof acco
   return null;
 }
 
+/** Staff whose clinic requires two-factor sign-in and who have not set it up yet. */
+export function mustSetUpTwoFactor(state: NonNullable<Awaited<ReturnType<typeof accountState>>>): boolean {
+  return state.role !== "patient" && state.requireTwoFactor && !state.enrolled;
+}
+
 // Our User model carries role and password hash beyond the adapter's own fields. Made once: the
 // adapter defines its other models on the connection.
 const adapter = SequelizeAdapter(sequelize, { models: { User: User as unknown as never }, synchronize: false });
@@ -165,7 +170,7 @@ export function authOptionsFor(ip = "unknown"): NextAuthOptions {
         const state = token.sub ? await accountState(token.sub) : null;
         const problem = sessionProblem(token, state);
         if (problem) throw new SessionEnded(problem);
-        token.setupTwoFactor = state!.role !== "patient" && state!.requireTwoFactor && !state!.enrolled;
+        token.setupTwoFactor = mustSetUpTwoFactor(state!);
         return token;
       },
       async session({ session, token }) {

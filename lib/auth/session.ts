@@ -1,13 +1,16 @@
 // Who is asking: used by every page, route handler and server action before touching data.
-// Reading the session checks the account's row each time (lib/auth/options.ts, `jwt`), so a
-// turned-off account or a changed role is refused on its next request.
+// Reading the session checks the account's row each time (`sessionProblem`, as next-auth's `jwt`
+// callback does), so a turned-off account or a changed role is refused on its next request.
 import "server-only";
-import { getServerSession, type Session } from "next-auth";
+import type { Session } from "next-auth";
+import { getToken } from "next-auth/jwt";
+import { cookies } from "next/headers";
 import { redirect } from "next/navigation";
 import { cache } from "react";
 import type { Role } from "@/db/models/user";
 import { AppError, forbidden, unauthorised } from "@/lib/server/errors";
-import { authOptions } from "./options";
+import { accountState } from "./account";
+import { mustSetUpTwoFactor, sessionProblem } from "./options";
 
 export type SessionUser = Session["user"];
 export const STAFF_ROLES: Role[] = ["reception", "dentist", "admin"];
@@ -19,9 +22,22 @@ type Options = {
 };
 
 // Once per request for pages (layout and page share it); route handlers call it once anyway.
+// The cookie is decoded directly and checked with one primary-key query: the same checks as
+// next-auth's `jwt` callback, without building next-auth's whole request handler (which
+// getServerSession does, and which cannot renew the cookie from here anyway).
 const readSession = cache(async (): Promise<SessionUser | null> => {
-  const session = await getServerSession(authOptions);
-  return session?.user?.id ? session.user : null;
+  const token = await getToken({ req: { cookies: await cookies(), headers: {} } as unknown as Parameters<typeof getToken>[0]["req"] });
+  if (!token?.sub) return null;
+  const state = await accountState(token.sub);
+  if (sessionProblem(token, state)) return null;
+  return {
+    id: token.sub,
+    email: token.email ?? "",
+    name: token.name ?? null,
+    role: state!.role,
+    clinicId: state!.clinicId,
+    setupTwoFactor: mustSetUpTwoFactor(state!),
+  };
 });
 
 export async function currentUser(): Promise<SessionUser | null> {

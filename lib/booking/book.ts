@@ -2,18 +2,19 @@
 // window, all in one transaction. PostgreSQL's exclusion constraint on reservations is the final
 // guard against double booking: of two concurrent requests for the same resources, one fails.
 import { Op, UniqueConstraintError, ExclusionConstraintError, type Transaction } from "sequelize";
-import { Appointment, AppointmentStage, Clinic, Patient, Proposal, ProposalMaterial, Reservation, sequelize } from "@/db/models";
-import { assertCanSee } from "@/lib/data/access";
-import { allowedOption } from "@/lib/data/proposals";
+import { Appointment, AppointmentStage, Clinic, Patient, Proposal, Reservation, sequelize } from "@/db/models";
+import { allowedOption, getBookableProposal } from "@/lib/data/proposals";
 import type { SessionUser } from "@/lib/auth/session";
 import { assign, holdsFor, isCandidateStart, nearest, type AvailabilityRules } from "@/lib/domain/availability";
 import type { Timeline } from "@/lib/domain/timeline";
 import { addDays, isoInZone, localDate } from "@/lib/domain/time-zone";
+import { fromFdi } from "@/lib/domain/tooth";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
 import { askDeposit } from "@/lib/payments/deposits";
 import { recordAudit } from "@/lib/server/audit";
 import { AppError, badRequest, conflict, notFound } from "@/lib/server/errors";
-import { loadBusy, loadResources, loadRules, loadTimeline } from "./context";
+import { loadBusy, loadResources, loadRules, loadTimeline, readClinic } from "./context";
+import { sharedAlternatives } from "./alternatives";
 import { writeSchedule } from "./schedule";
 import { searchSlots } from "./search";
 import "@/lib/mail/hooks";
@@ -37,10 +38,11 @@ function assertBookableTime(rules: AvailabilityRules, timeline: Timeline, start:
   }
 }
 
-async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
-  const rules = await loadRules(opts.clinic, opts.transaction);
+async function placeAt(opts: { clinic: Clinic; proposal: Pick<Proposal, "dentistId">; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
+  const setup = (await readClinic(opts.clinic.id, opts.transaction))!;
+  const rules = await loadRules(setup, opts.transaction);
   assertBookableTime(rules, opts.timeline, opts.start, opts.now);
-  const all = await loadResources(opts.clinic.id, opts.proposal.dentistId, opts.transaction);
+  const all = await loadResources(setup, opts.proposal.dentistId, opts.transaction);
   // Only furnaces able to run the visit's firing programmes.
   const resources = opts.furnaceIds ? { ...all, furnace: all.furnace.filter((id) => opts.furnaceIds!.includes(id)) } : all;
   const busy = await loadBusy({
@@ -56,10 +58,14 @@ async function placeAt(opts: { clinic: Clinic; proposal: Proposal; timeline: Tim
   return { assignment, rules };
 }
 
-async function alternatives(proposal: Proposal, materialId: string, mode: Mode, wanted: Date, zone: string, now: Date, excludeAppointmentId?: string) {
-  const day = localDate(wanted, zone);
-  const { slots } = await searchSlots({ proposal, materialId, mode, from: addDays(day, -3), days: 7, now, excludeAppointmentId });
-  return nearest(slots, wanted, 3).map((s) => ({ start: isoInZone(s.start, zone), end: isoInZone(s.end, zone) }));
+/** The nearest free times to `wanted`, shared by every request that lost the same race. */
+async function alternatives(proposal: Pick<Proposal, "clinicId" | "dentistId" | "tooth">, materialId: string, mode: Mode, wanted: Date, zone: string, now: Date, excludeAppointmentId?: string) {
+  const key = [proposal.clinicId, proposal.dentistId, materialId, mode, fromFdi(proposal.tooth).toothClass, wanted.toISOString(), excludeAppointmentId ?? ""].join(" ");
+  return sharedAlternatives(key, async (transaction) => {
+    const day = localDate(wanted, zone);
+    const { slots } = await searchSlots({ proposal, materialId, mode, from: addDays(day, -3), days: 7, now, excludeAppointmentId, transaction });
+    return nearest(slots, wanted, 3).map((s) => ({ start: isoInZone(s.start, zone), end: isoInZone(s.end, zone) }));
+  });
 }
 
 // Lost races between concurrent bookings: an overlapping reservation (23P01), or PostgreSQL
@@ -74,15 +80,13 @@ function isRaceLoss(err: unknown) {
 export async function bookVisit(opts: { proposalId: string; materialId: string; mode: Mode; start: Date; actor: Actor; now?: Date }) {
   const { actor } = opts;
   const now = opts.now ?? new Date();
-  const proposal = await Proposal.findByPk(opts.proposalId, { include: [{ model: ProposalMaterial, as: "options", include: ["material"] }] });
   // Patients reach only their own proposals; staff only their clinic's. Others get 404.
-  await assertCanSee(actor.user, proposal, "That proposal");
-  const p = proposal!;
+  const p = await getBookableProposal({ user: actor.user, id: opts.proposalId });
   if (p.status !== "open") throw conflict("This proposal is closed: ask the clinic for a new one.");
   const option = allowedOption(p, opts.materialId, opts.mode);
-  const clinic = (await Clinic.findByPk(p.clinicId))!;
-  const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
-  assertBookableTime(await loadRules(clinic), timeline, opts.start, now);
+  const [clinic, setup] = await Promise.all([Clinic.findByPk(p.clinicId).then((c) => c!), readClinic(p.clinicId).then((c) => c!)]);
+  const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, clinic: setup, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
+  assertBookableTime(await loadRules(setup), timeline, opts.start, now);
 
   for (let attempt = 1; ; attempt++) {
     try {

@@ -1,6 +1,15 @@
 // Loads what the pure timeline and availability functions need, from the database.
-import { Op, type Transaction } from "sequelize";
-import { ClosedDay, Clinic, Equipment, EquipmentOutage, FurnaceProgramme, Material, MaterialMode, OpeningHour, Reservation, StageDuration } from "@/db/models";
+//
+// A clinic's scheduling settings (opening hours, closed days, working equipment, stage minutes,
+// materials and their modes, furnace programmes) change rarely and every search reads them, so
+// they are kept in memory per clinic under the clinic's `settings_version`. Database triggers bump
+// that version in the same transaction as every write to those tables (migration 0016); each use
+// reads the clinic row and its version first, so a copy is used only while it is current, whichever
+// app instance made the change. What a transaction reads is never kept (it may be its own,
+// uncommitted change).
+import { QueryTypes, type Attributes, type Transaction } from "sequelize";
+import { FurnaceProgramme, Material, MaterialMode, sequelize } from "@/db/models";
+import type { ClinicSettingsJson } from "@/db/models/clinic";
 import { capableFurnaces, ProgrammeUnavailable, withProgrammeMinutes, type FurnaceProgrammeRow } from "@/lib/domain/furnace-programmes";
 import { BusyIndex, type AvailabilityRules, type Resources } from "@/lib/domain/availability";
 import { withDefaults } from "@/lib/domain/clinic-settings";
@@ -9,16 +18,91 @@ import { fromFdi } from "@/lib/domain/tooth";
 import type { Mode } from "@/lib/domain/types";
 import { AppError, notFound, unprocessable } from "@/lib/server/errors";
 
-export async function loadRules(clinic: Clinic, transaction?: Transaction): Promise<AvailabilityRules> {
-  const [hours, closed] = await Promise.all([
-    OpeningHour.findAll({ where: { clinicId: clinic.id }, transaction }),
-    ClosedDay.findAll({ where: { clinicId: clinic.id }, transaction }),
-  ]);
+export type ClinicRow = { id: string; timeZone: string; settings: ClinicSettingsJson; settingsVersion?: string };
+
+type MaterialRow = Attributes<Material>;
+type ModeRow = Attributes<MaterialMode>;
+
+/** A clinic's scheduling settings, as plain rows. */
+type SchedulingSettings = {
+  hours: { weekday: number; opens: string; closes: string }[];
+  closedDays: string[];
+  /** Working equipment, by name. */
+  equipment: { id: string; kind: string }[];
+  stageMinutes: { stage: string; toothClass: string | null; minutes: number }[];
+  materials: Map<string, MaterialRow>;
+  /** By `${materialId} ${mode}`. */
+  modes: Map<string, ModeRow>;
+  programmes: Map<string, FurnaceProgrammeRow>;
+};
+
+const MAX_CACHED_CLINICS = 500;
+const cached = new Map<string, { version: bigint; settings: Promise<SchedulingSettings> }>();
+
+/** The clinic's row with its settings version: one primary-key read on every use. */
+export async function readClinic(clinicId: string, transaction?: Transaction): Promise<ClinicRow | null> {
+  const [row] = await sequelize.query<ClinicRow>(
+    `SELECT id, time_zone AS "timeZone", settings, settings_version::text AS "settingsVersion" FROM clinics WHERE id = :clinicId`,
+    { replacements: { clinicId }, type: QueryTypes.SELECT, transaction },
+  );
+  return row ?? null;
+}
+
+async function fetchSettings(clinicId: string, transaction?: Transaction): Promise<SchedulingSettings> {
+  const q = <T extends object>(sql: string) => sequelize.query<T>(sql, { replacements: { clinicId }, type: QueryTypes.SELECT, transaction });
+  // One after another: a transaction has one connection, and a miss is rare enough.
+  const hours = await q<SchedulingSettings["hours"][number]>(`SELECT weekday, opens::text, closes::text FROM opening_hours WHERE clinic_id = :clinicId`);
+  const closed = await q<{ day: string }>(`SELECT day::text AS day FROM closed_days WHERE clinic_id = :clinicId`);
+  const equipment = await q<SchedulingSettings["equipment"][number]>(`SELECT id, kind FROM equipment WHERE clinic_id = :clinicId AND active ORDER BY name`);
+  const stageMinutes = await q<SchedulingSettings["stageMinutes"][number]>(`SELECT stage, tooth_class AS "toothClass", minutes FROM stage_durations WHERE clinic_id = :clinicId`);
+  const materials = await Material.findAll({ where: { clinicId }, raw: true, transaction });
+  const modes = await MaterialMode.findAll({ include: [{ model: Material, as: "material", attributes: [], where: { clinicId }, required: true }], raw: true, transaction });
+  const programmes = await FurnaceProgramme.findAll({ where: { clinicId }, raw: true, transaction });
+  return {
+    hours: hours.map((h) => ({ weekday: h.weekday, opens: h.opens.slice(0, 5), closes: h.closes.slice(0, 5) })),
+    closedDays: closed.map((c) => c.day),
+    equipment,
+    stageMinutes,
+    materials: new Map(materials.map((m) => [m.id, m as MaterialRow])),
+    modes: new Map(modes.map((m) => [`${m.materialId} ${m.mode}`, m as ModeRow])),
+    programmes: new Map(programmes.map((p) => [p.id, p as FurnaceProgrammeRow])),
+  };
+}
+
+/** The clinic's scheduling settings, from memory while its settings version has not moved. */
+async function settingsOf(clinic: ClinicRow, transaction?: Transaction): Promise<SchedulingSettings> {
+  if (clinic.settingsVersion === undefined) return fetchSettings(clinic.id, transaction);
+  const version = BigInt(clinic.settingsVersion);
+  const hit = cached.get(clinic.id);
+  if (hit && hit.version === version) return hit.settings;
+  // A transaction may see its own, uncommitted settings: used, never kept. (A copy kept from
+  // committed data can serve it: a transaction that wrote settings holds a version no one else has.)
+  if (transaction) return fetchSettings(clinic.id, transaction);
+  // Read after the version, so what is stored is at least as new as the version it is filed under.
+  const settings = fetchSettings(clinic.id);
+  if (!hit || hit.version < version) {
+    if (!hit && cached.size >= MAX_CACHED_CLINICS) cached.delete(cached.keys().next().value!);
+    cached.set(clinic.id, { version, settings });
+    settings.catch(() => {
+      if (cached.get(clinic.id)?.settings === settings) cached.delete(clinic.id);
+    });
+  }
+  return settings;
+}
+
+async function clinicOrFail(clinicId: string, transaction?: Transaction): Promise<ClinicRow> {
+  const clinic = await readClinic(clinicId, transaction);
+  if (!clinic) throw notFound("That clinic");
+  return clinic;
+}
+
+export async function loadRules(clinic: ClinicRow, transaction?: Transaction): Promise<AvailabilityRules> {
+  const { hours, closedDays } = await settingsOf(clinic, transaction);
   const settings = withDefaults(clinic.settings);
   return {
     zone: clinic.timeZone,
-    openingHours: hours.map((h) => ({ weekday: h.weekday, opens: h.opens.slice(0, 5), closes: h.closes.slice(0, 5) })),
-    closedDays: closed.map((c) => c.day),
+    openingHours: hours,
+    closedDays,
     slotMinutes: settings.slotMinutes,
     bufferMinutes: settings.bufferMinutes,
     minNoticeMinutes: settings.minNoticeMinutes,
@@ -27,26 +111,25 @@ export async function loadRules(clinic: Clinic, transaction?: Transaction): Prom
 
 /** The visit's timeline, with firing minutes from the assigned furnace programmes, and the furnaces
  *  able to run them (null: any furnace). A mode whose programme no working furnace runs is a 422. */
-export async function loadTimeline(opts: { clinicId: string; materialId: string; mode: Mode; tooth: number; transaction?: Transaction }): Promise<{ timeline: Timeline; material: Material; materialMode: MaterialMode; furnaceIds: string[] | null }> {
-  const material = await Material.findOne({ where: { id: opts.materialId, clinicId: opts.clinicId }, transaction: opts.transaction });
+export async function loadTimeline(opts: { clinicId: string; clinic?: ClinicRow; materialId: string; mode: Mode; tooth: number; transaction?: Transaction }): Promise<{ timeline: Timeline; material: MaterialRow; materialMode: ModeRow; furnaceIds: string[] | null }> {
+  const clinic = opts.clinic ?? (await clinicOrFail(opts.clinicId, opts.transaction));
+  const settings = await settingsOf(clinic, opts.transaction);
+  const material = settings.materials.get(opts.materialId);
   if (!material) throw notFound("That material");
-  const materialMode = await MaterialMode.findOne({ where: { materialId: material.id, mode: opts.mode }, transaction: opts.transaction });
+  const materialMode = settings.modes.get(`${material.id} ${opts.mode}`);
   if (!materialMode) throw unprocessable(`${material.name} cannot be made in the ${opts.mode} mode at this clinic.`, "mode");
-  const stageMinutes = await StageDuration.findAll({ where: { clinicId: opts.clinicId }, transaction: opts.transaction });
-  const programmeIds = [materialMode.heatProgrammeId, materialMode.glazeProgrammeId].filter((x): x is string => !!x);
-  const programmes = programmeIds.length ? await FurnaceProgramme.findAll({ where: { id: { [Op.in]: programmeIds }, clinicId: opts.clinicId }, transaction: opts.transaction }) : [];
-  const row = (id: string | null): FurnaceProgrammeRow | null => programmes.find((p) => p.id === id) ?? null;
+  const row = (id: string | null): FurnaceProgrammeRow | null => (id && settings.programmes.get(id)) || null;
   const choice = { heat: material.heatTreatment === "none" ? null : row(materialMode.heatProgrammeId), glaze: materialMode.finishing === "stain_glaze" ? row(materialMode.glazeProgrammeId) : null };
   try {
     const timeline = estimateTimeline({
       material,
-      mode: withProgrammeMinutes(materialMode.get({ plain: true }), choice),
+      mode: withProgrammeMinutes(materialMode, choice),
       toothClass: fromFdi(opts.tooth).toothClass,
-      stageMinutes: stageMinutes.map((s) => ({ stage: s.stage, toothClass: s.toothClass, minutes: s.minutes })),
+      stageMinutes: settings.stageMinutes as Parameters<typeof estimateTimeline>[0]["stageMinutes"],
     });
     let furnaceIds: string[] | null = null;
     if (choice.heat || choice.glaze) {
-      const working = await Equipment.findAll({ where: { clinicId: opts.clinicId, kind: "furnace", active: true }, order: [["name", "ASC"]], transaction: opts.transaction });
+      const working = settings.equipment.filter((e) => e.kind === "furnace");
       // Only the firings this visit really has count (a polished finish has no glaze firing).
       const fires = new Set(timeline.stages.map((s) => s.key));
       furnaceIds = capableFurnaces(working.map((f) => f.id), [fires.has("heat_treatment") ? choice.heat : null, fires.has("glaze_firing") ? choice.glaze : null]);
@@ -58,34 +141,33 @@ export async function loadTimeline(opts: { clinicId: string; materialId: string;
   }
 }
 
-export async function loadResources(clinicId: string, dentistId: string, transaction?: Transaction): Promise<Resources> {
-  const equipment = await Equipment.findAll({ where: { clinicId, active: true }, order: [["name", "ASC"]], transaction });
+export async function loadResources(clinic: ClinicRow | string, dentistId: string, transaction?: Transaction): Promise<Resources> {
+  const { equipment } = await settingsOf(typeof clinic === "string" ? await clinicOrFail(clinic, transaction) : clinic, transaction);
   const ids = (kind: string) => equipment.filter((e) => e.kind === kind).map((e) => e.id);
   return { chair: ids("chair"), mill: ids("mill"), furnace: ids("furnace"), dentist: [dentistId] };
 }
 
-/** Active reservations and out-of-service ranges of the clinic's resources between two instants. */
+/** Active reservations and out-of-service ranges of the clinic's resources between two instants,
+ *  read as plain numbers (thousands of rows on a busy fortnight: no model instances, no range parsing). */
 export async function loadBusy(opts: { clinicId: string; resources: Resources; from: Date; to: Date; excludeAppointmentId?: string; transaction?: Transaction }): Promise<BusyIndex> {
   const ids = Object.values(opts.resources).flat();
-  const range = [opts.from, opts.to];
-  const [reservations, outages] = await Promise.all([
-    Reservation.findAll({
-      where: {
-        resourceId: { [Op.in]: ids },
-        active: true,
-        during: { [Op.overlap]: range },
-        ...(opts.excludeAppointmentId ? { appointmentId: { [Op.ne]: opts.excludeAppointmentId } } : {}),
-      } as never,
-      transaction: opts.transaction,
-    }),
-    EquipmentOutage.findAll({ where: { equipmentId: { [Op.in]: ids }, during: { [Op.overlap]: range } } as never, transaction: opts.transaction }),
-  ]);
-  const toInterval = (during: unknown) => {
-    const [a, b] = during as [{ value: Date | string | null }, { value: Date | string | null }];
-    return { start: a.value ? new Date(a.value).getTime() : -Infinity, end: b.value ? new Date(b.value).getTime() : Infinity };
-  };
-  return new BusyIndex([
-    ...reservations.map((r) => ({ resourceId: r.resourceId, ...toInterval(r.during) })),
-    ...outages.map((o) => ({ resourceId: o.equipmentId, ...toInterval(o.during) })),
-  ]);
+  if (!ids.length) return new BusyIndex([]);
+  const replacements = { ids, from: opts.from, to: opts.to, exclude: opts.excludeAppointmentId ?? null };
+  // Milliseconds since 1970; an open end is null (unbounded).
+  const ends = `extract(epoch FROM lower(during)) * 1000 AS start, extract(epoch FROM upper(during)) * 1000 AS "end"`;
+  type Row = { resourceId: string; start: number | string | null; end: number | string | null };
+  const rows = await sequelize.query<Row>(
+    `SELECT resource_id AS "resourceId", ${ends} FROM reservations
+      WHERE resource_id IN (:ids) AND active AND during && tstzrange(:from, :to)
+        AND (CAST(:exclude AS uuid) IS NULL OR appointment_id IS DISTINCT FROM CAST(:exclude AS uuid))
+     UNION ALL
+     SELECT equipment_id, ${ends} FROM equipment_outages
+      WHERE equipment_id IN (:ids) AND during && tstzrange(:from, :to)`,
+    { replacements, type: QueryTypes.SELECT, transaction: opts.transaction },
+  );
+  return new BusyIndex(rows.map((r) => ({
+    resourceId: r.resourceId,
+    start: r.start === null ? -Infinity : Number(r.start),
+    end: r.end === null ? Infinity : Number(r.end),
+  })));
 }

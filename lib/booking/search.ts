@@ -1,15 +1,15 @@
 // Availability for a proposal's chosen material and mode, from today (clinic time) or a given day.
 import type { Transaction } from "sequelize";
-import { Clinic, type Proposal } from "@/db/models";
+import type { Proposal } from "@/db/models";
 import { findSlots, type Slot } from "@/lib/domain/availability";
 import { DEFAULT_SEARCH_DAYS } from "@/lib/domain/clinic-settings";
 import { addDays, localDate, zonedTime } from "@/lib/domain/time-zone";
 import type { Mode } from "@/lib/domain/types";
 import { notFound } from "@/lib/server/errors";
-import { loadBusy, loadResources, loadRules, loadTimeline } from "./context";
+import { loadBusy, loadResources, loadRules, loadTimeline, readClinic } from "./context";
 
 export async function searchSlots(opts: {
-  proposal: Proposal;
+  proposal: Pick<Proposal, "clinicId" | "dentistId" | "tooth">;
   materialId: string;
   mode: Mode;
   from?: string;
@@ -19,7 +19,7 @@ export async function searchSlots(opts: {
   transaction?: Transaction;
 }): Promise<{ timezone: string; slots: Slot[]; totalMinutes: number }> {
   const { proposal, transaction } = opts;
-  const clinic = await Clinic.findByPk(proposal.clinicId, { transaction });
+  const clinic = await readClinic(proposal.clinicId, transaction);
   if (!clinic) throw notFound("That clinic");
   const now = opts.now ?? new Date();
   const today = localDate(now, clinic.timeZone);
@@ -27,8 +27,8 @@ export async function searchSlots(opts: {
   const days = opts.days ?? DEFAULT_SEARCH_DAYS;
   const [rules, { timeline, furnaceIds }, allResources] = await Promise.all([
     loadRules(clinic, transaction),
-    loadTimeline({ clinicId: clinic.id, materialId: opts.materialId, mode: opts.mode, tooth: proposal.tooth, transaction }),
-    loadResources(clinic.id, proposal.dentistId, transaction),
+    loadTimeline({ clinicId: clinic.id, clinic, materialId: opts.materialId, mode: opts.mode, tooth: proposal.tooth, transaction }),
+    loadResources(clinic, proposal.dentistId, transaction),
   ]);
   // Only furnaces able to run the visit's firing programmes.
   const resources = furnaceIds ? { ...allResources, furnace: allResources.furnace.filter((id) => furnaceIds.includes(id)) } : allResources;

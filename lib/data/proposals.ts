@@ -1,6 +1,6 @@
 // Data access for crown proposals.
 import "server-only";
-import { Op } from "sequelize";
+import { Op, QueryTypes } from "sequelize";
 import { Appointment, Material, MaterialMode, Patient, Proposal, ProposalMaterial, User, sequelize } from "@/db/models";
 import type { SessionUser } from "@/lib/auth/session";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
@@ -63,12 +63,51 @@ export async function getProposal({ user, id }: { user: SessionUser; id: string 
   return { row: row!, view: toView(row!, active.get(row!.id) ?? null) };
 }
 
+type OptionLike = { materialId: string; modes: Mode[]; feeCents?: number | null; material?: { name: string } | null };
+
 /** The proposal's allowed material and mode, or a clear 4xx. */
-export function allowedOption(row: Proposal, materialId: string, mode: Mode) {
+export function allowedOption<O extends OptionLike>(row: { options?: O[] }, materialId: string, mode: Mode): O {
   const option = row.options?.find((o) => o.materialId === materialId);
   if (!option) throw unprocessable("This proposal does not offer that material.", "materialId");
   if (!option.modes.includes(mode)) throw unprocessable(`This proposal does not offer ${option.material?.name ?? "that material"} in the ${mode} mode.`, "mode");
   return option;
+}
+
+export type BookableProposal = {
+  id: string;
+  clinicId: string;
+  patientId: string;
+  dentistId: string;
+  tooth: number;
+  feeCents: number;
+  status: string;
+  options: OptionLike[];
+};
+
+/**
+ * What a search for free times needs of a proposal, as plain values in one query (the proposal,
+ * its patient's account and its options), with the same access rule as `getProposal`: a patient's
+ * own, or the staff member's clinic's; anything else is a 404.
+ */
+export async function getBookableProposal({ user, id }: { user: SessionUser; id: string }): Promise<BookableProposal> {
+  const [row] = /^[0-9a-f-]{36}$/i.test(id)
+    ? await sequelize.query<BookableProposal & { patientUserId: string }>(
+        `SELECT p.id, p.clinic_id AS "clinicId", p.patient_id AS "patientId", p.dentist_id AS "dentistId", p.tooth, p.fee_cents AS "feeCents", p.status,
+                pat.user_id AS "patientUserId",
+                coalesce(json_agg(json_build_object('materialId', pm.material_id, 'modes', pm.modes, 'feeCents', pm.fee_cents, 'material', json_build_object('name', m.name)))
+                  FILTER (WHERE pm.material_id IS NOT NULL), '[]') AS options
+           FROM proposals p
+           JOIN patients pat ON pat.id = p.patient_id
+           LEFT JOIN proposal_materials pm ON pm.proposal_id = p.id
+           LEFT JOIN materials m ON m.id = pm.material_id
+          WHERE p.id = :id
+          GROUP BY p.id, pat.user_id`,
+        { replacements: { id }, type: QueryTypes.SELECT },
+      )
+    : [];
+  const visible = row && (user.role === "patient" ? row.patientUserId === user.id : row.clinicId === user.clinicId);
+  if (!visible) throw notFound("That proposal");
+  return { id: row.id, clinicId: row.clinicId, patientId: row.patientId, dentistId: row.dentistId, tooth: row.tooth, feeCents: row.feeCents, status: row.status, options: row.options };
 }
 
 /** The dentist who proposes: a dentist proposes as themself; a manager must name an active dentist of the clinic. */

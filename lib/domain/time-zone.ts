@@ -1,22 +1,72 @@
-// Clinic-local wall-clock times ⇄ instants, through dayjs's time-zone plugin (Intl data underneath).
-import dayjs from "dayjs";
-import timezone from "dayjs/plugin/timezone";
-import utc from "dayjs/plugin/utc";
+// Clinic-local wall-clock times ⇄ instants, from the Intl time-zone data. One formatter per zone is
+// made once and reused: a formatter is costly to build, and a search converts hundreds of instants.
 
-dayjs.extend(utc);
-dayjs.extend(timezone);
+type Wall = { year: number; month: number; day: number; hour: number; minute: number; second: number };
 
-/** The instant of a wall-clock time ("YYYY-MM-DD", "HH:MM[:SS]") in an IANA zone. */
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
+function formatterFor(zone: string): Intl.DateTimeFormat {
+  let f = formatters.get(zone);
+  if (!f) {
+    f = new Intl.DateTimeFormat("en-US", {
+      timeZone: zone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit",
+    });
+    formatters.set(zone, f);
+  }
+  return f;
+}
+
+/** The wall-clock reading of an instant in a zone. */
+function wallAt(ms: number, zone: string): Wall {
+  const w: Wall = { year: 0, month: 0, day: 0, hour: 0, minute: 0, second: 0 };
+  for (const part of formatterFor(zone).formatToParts(ms)) {
+    if (part.type in w) w[part.type as keyof Wall] = Number(part.value);
+  }
+  if (w.hour === 24) w.hour = 0;
+  return w;
+}
+
+/** The zone's offset from UTC at an instant, in minutes (east positive), from its wall reading. */
+function offsetOf(ms: number, w: Wall): number {
+  const whole = ms - (((ms % 1000) + 1000) % 1000);
+  return (Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) - whole) / 60_000;
+}
+
+const offsetAt = (ms: number, zone: string) => offsetOf(ms, wallAt(ms, zone));
+
+const pad = (n: number, width = 2) => String(n).padStart(width, "0");
+
+// What an invalid date reads as, as before (dayjs's wording): callers show or compare it, never crash.
+const INVALID = "Invalid Date";
+
+/** The instant of a wall-clock time ("YYYY-MM-DD", "HH:MM[:SS]") in an IANA zone. A time skipped by
+ *  a change to summer time lands after the change; a time that occurs twice takes the instant the
+ *  zone's offset at that wall time (read as UTC) gives, whatever today's date. */
 export function zonedTime(date: string, time: string, zone: string): Date {
-  return dayjs.tz(`${date} ${time.slice(0, 5)}`, "YYYY-MM-DD HH:mm", zone).toDate();
+  const [y, mo, d] = date.split("-").map(Number);
+  const [h, mi] = time.slice(0, 5).split(":").map(Number);
+  const local = Date.UTC(y, mo - 1, d, h, mi);
+  // Guess with the offset at the wall time read as UTC, then correct once or twice.
+  const o0 = offsetAt(local, zone);
+  let guess = local - o0 * 60_000;
+  const o2 = offsetAt(guess, zone);
+  if (o0 === o2) return new Date(guess);
+  guess -= (o2 - o0) * 60_000;
+  const o3 = offsetAt(guess, zone);
+  if (o2 === o3) return new Date(guess);
+  return new Date(local - Math.min(o2, o3) * 60_000);
 }
 
 export function localDate(instant: Date, zone: string): string {
-  return dayjs(instant).tz(zone).format("YYYY-MM-DD");
+  if (Number.isNaN(instant.getTime())) return INVALID;
+  const w = wallAt(instant.getTime(), zone);
+  return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}`;
 }
 
 export function localTime(instant: Date, zone: string): string {
-  return dayjs(instant).tz(zone).format("HH:mm");
+  if (Number.isNaN(instant.getTime())) return INVALID;
+  const w = wallAt(instant.getTime(), zone);
+  return `${pad(w.hour)}:${pad(w.minute)}`;
 }
 
 /** 0 = Sunday … 6 = Saturday, for a calendar date (independent of zone). */
@@ -31,27 +81,13 @@ export function addDays(date: string, days: number): string {
 }
 
 /** ISO 8601 with the zone's offset at that instant, e.g. 2027-03-15T08:00:00-04:00. */
-// One formatter per zone, kept: building an Intl.DateTimeFormat costs far more than formatting with
-// one, and the day board formats several hundred instants per request.
-const wallClock = new Map<string, Intl.DateTimeFormat>();
-
 export function isoInZone(instant: Date, zone: string): string {
-  let format = wallClock.get(zone);
-  if (!format) {
-    format = new Intl.DateTimeFormat("en-US", {
-      timeZone: zone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit",
-    });
-    wallClock.set(zone, format);
-  }
-  const part: Record<string, string> = {};
-  for (const p of format.formatToParts(instant)) part[p.type] = p.value;
-  const [y, mo, d, h, mi, s] = [part.year, part.month, part.day, part.hour, part.minute, part.second].map(Number);
-  // The offset is the wall clock read as UTC minus the instant (to the whole second, as displayed).
-  const offsetMinutes = Math.round((Date.UTC(y, mo - 1, d, h, mi, s) - Math.floor(instant.getTime() / 1000) * 1000) / 60_000);
-  const sign = offsetMinutes < 0 ? "-" : "+";
-  const abs = Math.abs(offsetMinutes);
-  const two = (n: number) => String(n).padStart(2, "0");
-  return `${String(y).padStart(4, "0")}-${two(mo)}-${two(d)}T${two(h)}:${two(mi)}:${two(s)}${sign}${two(Math.floor(abs / 60))}:${two(abs % 60)}`;
+  const ms = instant.getTime();
+  if (Number.isNaN(ms)) return INVALID;
+  const w = wallAt(ms, zone);
+  const offset = offsetOf(ms, w);
+  const sign = offset < 0 ? "-" : "+";
+  return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}T${pad(w.hour)}:${pad(w.minute)}:${pad(w.second)}${sign}${pad(Math.floor(Math.abs(offset) / 60))}:${pad(Math.abs(offset) % 60)}`;
 }
 
 export function isValidZone(zone: string): boolean {

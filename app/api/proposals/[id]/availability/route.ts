@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { requireUser } from "@/lib/auth/session";
 import { availabilityQuerySchema } from "@/lib/booking/schemas";
 import { searchSlots } from "@/lib/booking/search";
-import { allowedOption, getProposal } from "@/lib/data/proposals";
+import { allowedOption, getBookableProposal } from "@/lib/data/proposals";
 import { isoInZone } from "@/lib/domain/time-zone";
 import { idParams, parseQuery, route } from "@/lib/server/api";
 
@@ -12,7 +12,7 @@ export const GET = route<{ params: Promise<{ id: string }> }>(async (req, { para
   const user = await requireUser(["patient", "reception", "dentist", "admin"]);
   const { id } = await idParams(params, "id");
   const query = parseQuery(req, availabilityQuerySchema);
-  const { row } = await getProposal({ user, id });
+  const row = await getBookableProposal({ user, id });
   allowedOption(row, query.materialId, query.mode);
   const { timezone, slots, totalMinutes } = await searchSlots({ proposal: row, materialId: query.materialId, mode: query.mode, from: query.from, days: query.days });
   return NextResponse.json({

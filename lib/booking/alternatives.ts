@@ -1,0 +1,35 @@
+// The nearest free times offered after a lost booking race. Many requests lose the same race at
+// once; the first of them computes the answer under a transaction-scoped advisory lock and stores
+// it in PostgreSQL for a few seconds, and the others wait for the lock and read it. Alternatives
+// are suggestions: the booking itself stays guarded by the reservations' exclusion constraint.
+import { QueryTypes, type Transaction } from "sequelize";
+import { sequelize } from "@/db/sequelize";
+
+/** How long a computed answer is reused. */
+const FRESH_SECONDS = 5;
+
+export type Alternative = { start: string; end: string };
+
+export async function sharedAlternatives(key: string, compute: (transaction: Transaction) => Promise<Alternative[]>): Promise<Alternative[]> {
+  return sequelize.transaction(async (transaction) => {
+    const q = <T extends object>(sql: string, replacements: Record<string, unknown>) => sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT, transaction });
+    await q(`SELECT pg_advisory_xact_lock(hashtextextended(:key, 0)) AS locked`, { key: `alternatives ${key}` });
+    // clock_timestamp, not now(): a waiter's transaction began before the answer it is about to read.
+    const [fresh] = await q<{ alternatives: Alternative[] }>(
+      `SELECT alternatives FROM booking_alternatives WHERE key = :key AND computed_at > clock_timestamp() - make_interval(secs => :fresh)`,
+      { key, fresh: FRESH_SECONDS },
+    );
+    if (fresh) return fresh.alternatives;
+    const alternatives = await compute(transaction);
+    await sequelize.query(
+      `INSERT INTO booking_alternatives (key, computed_at, alternatives) VALUES (:key, clock_timestamp(), :alternatives::jsonb)
+       ON CONFLICT (key) DO UPDATE SET computed_at = EXCLUDED.computed_at, alternatives = EXCLUDED.alternatives`,
+      { replacements: { key, alternatives: JSON.stringify(alternatives) }, transaction },
+    );
+    // Old answers are useless; a few computations in a hundred clear them out.
+    if (Math.random() < 0.05) {
+      await sequelize.query(`DELETE FROM booking_alternatives WHERE computed_at < clock_timestamp() - interval '10 minutes'`, { transaction });
+    }
+    return alternatives;
+  });
+}
