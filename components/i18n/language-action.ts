@@ -1,11 +1,12 @@
 "use server";
 // Server action behind the language switcher: a cookie for everyone, and the signed-in
 // patient's saved preference (so e-mails and the consent follow it too).
-import { cookies, headers } from "next/headers";
+import { cookies } from "next/headers";
 import { z } from "zod";
 import { currentUser } from "@/lib/auth/session";
 import { setPatientLanguage } from "@/lib/data/language";
 import { LOCALE_COOKIE, LOCALES } from "@/lib/i18n/locale";
+import { actionClient } from "@/lib/server/action";
 
 const languageSchema = z.object({ language: z.enum(LOCALES) });
 export type LanguageResult = { ok: true } | { ok: false; error: string };
@@ -17,10 +18,7 @@ export async function setLanguageAction(input: unknown): Promise<LanguageResult>
   try {
     const user = await currentUser();
     if (user?.role === "patient") {
-      const h = await headers();
-      await setPatientLanguage({
-        user, language, ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || null, userAgent: h.get("user-agent"),
-      });
+      await setPatientLanguage({ user, language, ...(await actionClient()) });
     }
     (await cookies()).set(LOCALE_COOKIE, language, { path: "/", sameSite: "lax", maxAge: 60 * 60 * 24 * 365, httpOnly: true });
     return { ok: true };

@@ -3,35 +3,23 @@
 // Server actions of the settings forms. Each one checks the admin role itself, parses the input
 // again with the form's schema (inside lib/data/settings.ts) and returns a typed state, never throws.
 import { revalidatePath } from "next/cache";
-import { headers } from "next/headers";
-import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import * as settings from "@/lib/data/settings";
 import { endStaffSessions } from "@/lib/data/staff";
-import { clientIpFrom } from "@/lib/server/client-ip";
 import { fromDatabaseError } from "@/lib/server/db-errors";
-import { AppError, badRequest } from "@/lib/server/errors";
+import { badRequest } from "@/lib/server/errors";
+import { actionClient, actionFailure, type ActionState } from "@/lib/server/action";
 
-export type ActionState = { ok: true; message: string } | { ok: false; message: string; fieldErrors?: Record<string, string> };
+export type { ActionState };
 
 async function asAdmin<T>(work: (actor: settings.Actor) => Promise<T>, done: string, path: string): Promise<ActionState> {
   try {
     const user = await requireUser(["admin"]);
-    const h = await headers();
-    const actor = { user, ip: clientIpFrom(h), userAgent: h.get("user-agent") ?? "unknown" };
-    await work(actor);
+    await work({ user, ...(await actionClient()) });
     revalidatePath(path);
     return { ok: true, message: done };
   } catch (err) {
-    if (err instanceof ZodError) {
-      const fieldErrors: Record<string, string> = {};
-      for (const issue of err.issues) fieldErrors[issue.path.join(".")] ??= issue.message;
-      return { ok: false, message: err.issues[0]?.message ?? "Check the form.", fieldErrors };
-    }
-    const known = err instanceof AppError ? err : fromDatabaseError(err);
-    if (known) return { ok: false, message: known.message, ...(known.field ? { fieldErrors: { [known.field]: known.message } } : {}) };
-    console.error("Settings action failed:", err instanceof Error ? err.stack : err);
-    return { ok: false, message: "Something went wrong on our side. Please try again." };
+    return actionFailure(fromDatabaseError(err) ?? err, "Settings action");
   }
 }
 

@@ -2,18 +2,13 @@
 
 // Block marks from the mill preparation list: plain form posts, so they work without scripts.
 import { revalidatePath } from "next/cache";
-import { headers } from "next/headers";
 import { ZodError } from "zod";
 import { requireUser, STAFF_ROLES } from "@/lib/auth/session";
 import { markBlockLoaded, recordVisitBlock } from "@/lib/data/mill-prep";
 import { AppError } from "@/lib/server/errors";
+import { actionClient } from "@/lib/server/action";
 
 export type BlockState = { ok: boolean; message: string } | null;
-
-async function client() {
-  const h = await headers();
-  return { ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown", userAgent: h.get("user-agent") ?? "unknown" };
-}
 
 function failure(err: unknown): BlockState {
   if (err instanceof ZodError) return { ok: false, message: err.issues[0]?.message ?? "Check the form." };
@@ -25,7 +20,7 @@ function failure(err: unknown): BlockState {
 export async function markBlockLoadedAction(_prev: BlockState, form: FormData): Promise<BlockState> {
   try {
     const user = await requireUser(STAFF_ROLES);
-    await markBlockLoaded({ user, input: { appointmentId: form.get("appointmentId"), loaded: form.get("loaded") }, ...(await client()) });
+    await markBlockLoaded({ user, input: { appointmentId: form.get("appointmentId"), loaded: form.get("loaded") }, ...(await actionClient()) });
     revalidatePath("/clinic/board/mill-prep");
     return { ok: true, message: form.get("loaded") === "yes" ? "Marked as loaded." : "Mark taken back." };
   } catch (err) {
@@ -36,7 +31,7 @@ export async function markBlockLoadedAction(_prev: BlockState, form: FormData): 
 export async function recordVisitBlockAction(_prev: BlockState, form: FormData): Promise<BlockState> {
   try {
     const user = await requireUser(["dentist", "admin"]);
-    await recordVisitBlock({ user, input: { appointmentId: form.get("appointmentId"), shade: form.get("shade"), blockSize: form.get("blockSize") }, ...(await client()) });
+    await recordVisitBlock({ user, input: { appointmentId: form.get("appointmentId"), shade: form.get("shade"), blockSize: form.get("blockSize") }, ...(await actionClient()) });
     revalidatePath("/clinic/board/mill-prep");
     return { ok: true, message: "Shade and block size saved." };
   } catch (err) {

@@ -10,7 +10,6 @@ import { EditDetailsForm } from "./edit-details-form";
 import { ArchiveButton, InviteButton } from "./patient-actions";
 import { PatientDocuments } from "./patient-documents";
 import { PatientBlocks } from "./patient-blocks";
-import { LOCALE_ENGLISH_NAMES } from "@/lib/i18n/locale";
 
 export const metadata: Metadata = { title: "Patient" };
 

@@ -1,19 +1,18 @@
 "use server";
 // Saves where the clinic practises (clinic manager only; the data layer checks the role again).
 import { revalidatePath } from "next/cache";
-import { headers } from "next/headers";
 import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import { setJurisdiction } from "@/lib/data/jurisdiction";
 import { AppError } from "@/lib/server/errors";
+import { actionClient } from "@/lib/server/action";
 
 export type JurisdictionState = { ok: boolean; message: string };
 
 export async function saveJurisdictionAction(input: unknown): Promise<JurisdictionState> {
   try {
     const user = await requireUser(["admin"]);
-    const h = await headers();
-    await setJurisdiction({ user, input, ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || null, userAgent: h.get("user-agent") });
+    await setJurisdiction({ user, input, ...(await actionClient()) });
     revalidatePath("/clinic/settings/jurisdiction");
     return { ok: true, message: "Saved. Consents signed from now on use this wording." };
   } catch (err) {

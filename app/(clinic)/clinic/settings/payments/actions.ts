@@ -3,13 +3,13 @@
 // Server actions of the prices-and-deposit settings. Each checks the manager role, parses the form
 // with the shared schema and comes back to the page with a message (never a thrown error).
 import { revalidatePath } from "next/cache";
-import { headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import { saveDepositPolicy, savePriceList } from "@/lib/data/payments";
 import { centsFromText, depositPolicySchema } from "@/lib/domain/payment-schemas";
 import { AppError } from "@/lib/server/errors";
+import { actionClient } from "@/lib/server/action";
 
 const PAGE = "/clinic/settings/payments";
 
@@ -17,8 +17,7 @@ async function asManager(work: (actor: { user: Awaited<ReturnType<typeof require
   let target: string;
   try {
     const user = await requireUser(["admin"]);
-    const h = await headers();
-    await work({ user, ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || "unknown", userAgent: h.get("user-agent") ?? "unknown" });
+    await work({ user, ...(await actionClient()) });
     revalidatePath(PAGE);
     target = `${PAGE}?saved=${encodeURIComponent(done)}`;
   } catch (err) {

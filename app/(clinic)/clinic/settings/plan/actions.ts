@@ -3,32 +3,21 @@
 // Server actions of the visit-plan settings. Each checks the admin role itself, parses the input
 // again (inside lib/data/plan-settings.ts) and returns a typed state, never throws.
 import { revalidatePath } from "next/cache";
-import { headers } from "next/headers";
-import { ZodError } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import * as plan from "@/lib/data/plan-settings";
-import { AppError } from "@/lib/server/errors";
 import type { ActionState } from "../actions";
+import { actionClient, actionFailure } from "@/lib/server/action";
 
 const PATH = "/clinic/settings/plan";
 
 async function run(work: (actor: plan.Actor) => Promise<unknown>, done: string): Promise<ActionState> {
   try {
     const user = await requireUser(["admin"]);
-    const h = await headers();
-    const actor = { user, ip: h.get("x-forwarded-for")?.split(",")[0]?.trim() || h.get("x-real-ip") || "unknown", userAgent: h.get("user-agent") ?? "unknown" };
-    await work(actor);
+    await work({ user, ...(await actionClient()) });
     revalidatePath(PATH);
     return { ok: true, message: done };
   } catch (err) {
-    if (err instanceof ZodError) {
-      const fieldErrors: Record<string, string> = {};
-      for (const issue of err.issues) fieldErrors[issue.path.join(".")] ??= issue.message;
-      return { ok: false, message: err.issues[0]?.message ?? "Check the form.", fieldErrors };
-    }
-    if (err instanceof AppError) return { ok: false, message: err.message, ...(err.field ? { fieldErrors: { [err.field]: err.message } } : {}) };
-    console.error("Plan settings action failed:", err instanceof Error ? err.stack : err);
-    return { ok: false, message: "Something went wrong on our side. Please try again." };
+    return actionFailure(err, "Plan settings action");
   }
 }
 
