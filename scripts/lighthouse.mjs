@@ -34,7 +34,7 @@ await ensureDatabases(["cuspal_lighthouse"]);
 const appPort = Number(process.env.PORT ?? (await freePort()));
 const env = {
   ...process.env,
-  ...appEnv({ db: "cuspal_lighthouse", appPort, smtpPort: await freePort(), mailWebPort: await freePort(), s3Port: await freePort() }),
+  ...appEnv({ db: "cuspal_lighthouse", appPort, smtpPort: await freePort(), mailWebPort: await freePort(), s3Port: await freePort(), paymentPort: await freePort() }),
   NEXT_DIST_DIR: process.env.NEXT_DIST_DIR ?? ".next-lighthouse",
   CHROME_PATH: process.env.CHROME_PATH ?? "/usr/bin/chromium",
 };
@@ -47,7 +47,9 @@ if (!existsSync(path.join(root, env.NEXT_DIST_DIR, "BUILD_ID")) || process.env.L
 }
 
 const [cmd, args] = appServerCommand(appPort);
-const app = spawn(cmd, args, { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "ignore", detached: true });
+const app = spawn(cmd, args, { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: ["ignore", "ignore", "pipe"], detached: true });
+let appErrors = "";
+app.stderr.on("data", (d) => { appErrors = (appErrors + d).slice(-4000); });
 const base = `http://localhost:${appPort}`;
 const stopApp = () => { try { process.kill(-app.pid, "SIGTERM"); } catch { /* gone */ } };
 process.on("exit", stopApp);
@@ -56,7 +58,7 @@ for (let i = 0; i < 300 && !up; i++) {
   up = await fetch(`${base}/api/health`).then((r) => r.ok, () => false);
   if (!up) await new Promise((r) => setTimeout(r, 200));
 }
-if (!up) fail("The app did not start for Lighthouse.");
+if (!up) fail(`The app did not start for Lighthouse.\n${appErrors}`);
 
 // Sign in as the demo patient in a browser, as a person would, and keep the session cookie.
 const { chromium } = await import("@playwright/test");
