@@ -14,6 +14,16 @@ const nextConfig = {
   typescript: { ignoreBuildErrors: process.env.CUSPAL_SKIP_TYPECHECK === "1" },
   async headers() {
     return [
+      // API answers hold personal data: never cached. Set here rather than in proxy.ts, which pages need
+      // and API requests would only pay for.
+      { source: "/api/:path*", headers: [{ key: "Cache-Control", value: "no-store" }] },
+      // HSTS over https only, as a TLS proxy says with X-Forwarded-Proto (the value and the test match
+      // lib/server/security-headers.ts, which the proxy uses for pages).
+      {
+        source: "/api/:path*",
+        has: [{ type: "header", key: "x-forwarded-proto", value: "(?:https|HTTPS)(?:\\s*,.*)?" }],
+        headers: [{ key: "Strict-Transport-Security", value: "max-age=63072000; includeSubDomains" }],
+      },
       {
         source: "/:path*",
         headers: [

@@ -19,7 +19,7 @@ const app = next({ dev: false, hostname: listenHost ?? "localhost", port: listen
 await app.prepare();
 const handle = app.getRequestHandler();
 
-createServer((req, res) => {
+const server = createServer((req, res) => {
   const peer = req.socket.remoteAddress ?? "unknown";
   const incoming = req.headers["x-forwarded-for"];
   const chain = Array.isArray(incoming) ? incoming.join(", ") : incoming;
@@ -30,3 +30,13 @@ createServer((req, res) => {
 }).listen(listenPort, listenHost, () => {
   console.log(`Cuspal is listening on port ${listenPort}`);
 });
+
+// A load balancer stops an instance with SIGTERM: finish the requests in flight, then exit (so a
+// --cpu-prof profile is written too). Idle keep-alive connections are closed at once.
+for (const signal of ["SIGTERM", "SIGINT"]) {
+  process.once(signal, () => {
+    server.close(() => process.exit(0));
+    server.closeIdleConnections();
+    setTimeout(() => process.exit(0), 5000).unref();
+  });
+}

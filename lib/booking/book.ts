@@ -68,6 +68,18 @@ async function alternatives(proposal: Pick<Proposal, "clinicId" | "dentistId" | 
   });
 }
 
+/**
+ * Bookings and moves at one clinic take turns: each waits for the clinic's schedule lock (held until
+ * its transaction ends) before reading what is busy. Of fifty patients asking for the same time, the
+ * first books and the others then see the time taken at once and are offered the nearest free
+ * times, instead of all writing a visit, colliding on the exclusion constraint and retrying. The
+ * constraint stays the guarantee; the lock only saves the losers' work. A clinic books a few visits
+ * an hour, and each turn lasts milliseconds, so the wait is short.
+ */
+async function takeScheduleTurn(clinicId: string, transaction: Transaction) {
+  await sequelize.query(`SELECT pg_advisory_xact_lock(hashtextextended(:key, 0))`, { replacements: { key: `schedule ${clinicId}` }, transaction });
+}
+
 // Lost races between concurrent bookings: an overlapping reservation (23P01), or PostgreSQL
 // breaking a deadlock between two inserts into the same exclusion index (40P01) or a serialisation
 // failure (40001). All are retried with fresh data, then answered with 409 and alternatives.
@@ -91,6 +103,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
   for (let attempt = 1; ; attempt++) {
     try {
       return await sequelize.transaction(async (transaction) => {
+        await takeScheduleTurn(clinic.id, transaction);
         const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, transaction });
         if (active) throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.", { appointmentId: active.id });
         const { assignment, rules } = await placeAt({ clinic, proposal: p, timeline, furnaceIds, start: opts.start, now, transaction });
@@ -150,6 +163,7 @@ export async function rescheduleVisit(opts: { appointment: Appointment; start: D
   const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, materialId: appointment.materialId, mode: appointment.mode, tooth: appointment.tooth });
   try {
     return await sequelize.transaction(async (transaction) => {
+      await takeScheduleTurn(clinic.id, transaction);
       const fresh = await Appointment.findByPk(appointment.id, { transaction, lock: transaction.LOCK.UPDATE });
       if (!fresh || !["requested", "confirmed"].includes(fresh.status)) throw conflict("Only a requested or confirmed visit can be moved.");
       await Reservation.update({ active: false }, { where: { appointmentId: fresh.id }, transaction });

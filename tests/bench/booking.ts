@@ -9,7 +9,7 @@ import { writeSchedule } from "@/lib/booking/schedule";
 import { searchSlots } from "@/lib/booking/search";
 import { findSlots } from "@/lib/domain/availability";
 import { addDays, localDate, zonedTime } from "@/lib/domain/time-zone";
-import { benchEnv, freshDatabase, ms, run, serverMemory, sessionCookie, startApp, stats, stopApp, throughput } from "./support";
+import { benchEnv, freshDatabase, ms, run, serverCpuMs, serverMemory, sessionCookie, startApp, stats, stopApp, throughput } from "./support";
 
 const DB = "cuspal_bench";
 // CUSPAL_TEST_PORT_OFFSET moves the port, as it does for `npm test`.
@@ -117,8 +117,13 @@ export async function run300(): Promise<Record<string, string | number>> {
     }
 
     // Side by side under 10 concurrent callers: the liveness route (no database) and availability.
+    // The server's CPU per request beside each rate: the load generator shares the machine's cores.
+    let cpu0 = serverCpuMs(app);
     const liveRate = await throughput(`http://localhost:${PORT}/api/health/live`, {}, 10, 5);
+    const liveCpu = (serverCpuMs(app) - cpu0) / (liveRate * 5);
+    cpu0 = serverCpuMs(app);
     const availabilityRate = await throughput(availabilityUrl, { headers: { cookie } }, 10, 5);
+    const availabilityCpu = (serverCpuMs(app) - cpu0) / (availabilityRate * 5);
     const memoryAfterLoad = serverMemory(app)[0]?.rssMb ?? NaN;
 
     // 50 patients, each with a proposal, all asking for the same start at once.
@@ -133,6 +138,7 @@ export async function run300(): Promise<Record<string, string | number>> {
     if (!free.slots?.length) throw new Error("No free slot left for the concurrency run.");
     const start = free.slots[0].start;
     const latencies: number[] = [];
+    const raceCpu0 = serverCpuMs(app);
     const statuses = await Promise.all(racers.map(async (r) => {
       const t = performance.now();
       const res = await fetch(`http://localhost:${PORT}/api/appointments`, { method: "POST", headers: { cookie: r.cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: r.proposalId, materialId: feld.id, mode: "rapid", start }) });
@@ -140,6 +146,7 @@ export async function run300(): Promise<Record<string, string | number>> {
       latencies.push(performance.now() - t);
       return res.status;
     }));
+    const raceCpu = (serverCpuMs(app) - raceCpu0) / racers.length;
     const count = (s: number) => statuses.filter((x) => x === s).length;
     const s = stats(latencies);
     const memoryAfterRace = serverMemory(app)[0]?.rssMb ?? NaN;
@@ -155,11 +162,13 @@ export async function run300(): Promise<Record<string, string | number>> {
       "10 callers: /api/health/live": `${liveRate.toFixed(0)} req/s`,
       "10 callers: availability": `${availabilityRate.toFixed(0)} req/s`,
       "10 callers: availability / live": `${((100 * availabilityRate) / liveRate).toFixed(0)} % (target ≥ 50 %)`,
+      "server CPU per request: live / availability": `${ms(liveCpu)} / ${ms(availabilityCpu)}`,
       "50 concurrent bookings: 201": `${count(201)} (target 1)`,
       "50 concurrent bookings: 409": `${count(409)} (target 49)`,
       "50 concurrent bookings: 5xx": `${statuses.filter((x) => x >= 500).length} (target 0)`,
       "50 concurrent bookings: p95 latency": `${ms(s.p95)} (target ≤ 300 ms)`,
       "50 concurrent bookings: max latency": ms(s.max),
+      "50 concurrent bookings: server CPU per booking": ms(raceCpu),
       "app server memory (VmRSS) after the availability load": `${mb(memoryAfterLoad)} (target ≤ 300 MB)`,
       "app server memory (VmRSS) after the bookings": `${mb(memoryAfterRace)} (target ≤ 300 MB)`,
     };

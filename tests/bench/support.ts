@@ -73,7 +73,8 @@ export async function startApp(env: NodeJS.ProcessEnv, port: number): Promise<Ch
   if (taken) throw new Error(`Port ${port} is taken by another program; set CUSPAL_TEST_PORT_OFFSET to move the benchmark's port.`);
   // BENCH_CPU_PROF=<dir> writes a CPU profile of the app server there when it stops (open it in Chrome's DevTools).
   const profile = process.env.BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${path.resolve(process.env.BENCH_CPU_PROF)}`] : [];
-  const child = spawn(process.execPath, [...profile, path.join(root, "node_modules/next/dist/bin/next"), "start", "-p", String(port)], { cwd: root, env, stdio: "ignore", detached: true });
+  // The same server `npm start` runs (scripts/server.mjs), not `next start`.
+  const child = spawn(process.execPath, [...profile, path.join(root, "scripts/server.mjs"), "-p", String(port)], { cwd: root, env, stdio: "ignore", detached: true });
   for (let i = 0; i < 150; i++) {
     try {
       if ((await fetch(`http://localhost:${port}/api/health`)).ok) return child;
@@ -119,6 +120,23 @@ export async function throughput(url: string, init: RequestInit, callers: number
   }));
   if (failed) throw new Error(`${failed} requests to ${url} failed during the load`);
   return done / ((performance.now() - t0) / 1000);
+}
+
+/** CPU time (user + system, ms) used so far by the app server's process group: sampled before and
+ *  after a load, the difference divided by the requests answered is the server's CPU per request. */
+export function serverCpuMs(child: ChildProcess): number {
+  let ticks = 0;
+  for (const entry of readdirSync("/proc")) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const stat = readFileSync(`/proc/${entry}/stat`, "utf8");
+      const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+      if (Number(fields[2]) !== child.pid) continue;
+      // Fields 14 and 15 (utime, stime), in clock ticks: 100 per second on Linux (USER_HZ).
+      ticks += Number(fields[11]) + Number(fields[12]);
+    } catch { /* gone meanwhile */ }
+  }
+  return ticks * 10;
 }
 
 /** Resident memory (VmRSS, MB) of each process of the app server's process group, largest first. */

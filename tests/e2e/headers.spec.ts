@@ -43,6 +43,10 @@ test("HSTS only when served over https (as a TLS proxy says with X-Forwarded-Pro
   const https = await request.get("/sign-in", { headers: { "x-forwarded-proto": "https" } });
   expect(https.headers()["strict-transport-security"]).toMatch(/^max-age=\d{8,}/);
   expect(https.headers()["content-security-policy"]).toContain("upgrade-insecure-requests");
+  // API answers too (their headers come from next.config.mjs, not the proxy).
+  expect((await request.get("/api/health/live")).headers()["strict-transport-security"]).toBeUndefined();
+  const api = await request.get("/api/health/live", { headers: { "x-forwarded-proto": "https" } });
+  expect(api.headers()["strict-transport-security"]).toMatch(/^max-age=\d{8,}/);
 });
 
 test("API answers are never cached, the live check needs no database, and the API document is public", async ({ request }) => {
