@@ -32,7 +32,35 @@ function offsetOf(ms: number, w: Wall): number {
   return (Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) - whole) / 60_000;
 }
 
-const offsetAt = (ms: number, zone: string) => offsetOf(ms, wallAt(ms, zone));
+const DAY = 86_400_000;
+const MAX_STEADY_DAYS = 20_000;
+// `${zone} ${UTC day number}` → the zone's offset all that day, or null on a day its offset changes.
+const steadyDays = new Map<string, number | null>();
+
+/** The zone's offset (minutes) at an instant. Offsets change a few times a year, so one read at each
+ *  end of the instant's UTC day serves every instant of that day when the two agree (no zone changes
+ *  its offset twice in one day and back); on the day of a change, each instant is read on its own.
+ *  A search formats hundreds of instants over a fortnight: ~30 readings instead of hundreds. */
+function offsetAt(ms: number, zone: string): number {
+  const day = Math.floor(ms / DAY);
+  const key = `${zone} ${day}`;
+  let steady = steadyDays.get(key);
+  if (steady === undefined) {
+    const first = offsetOf(day * DAY, wallAt(day * DAY, zone));
+    const last = offsetOf((day + 1) * DAY - 1000, wallAt((day + 1) * DAY - 1000, zone));
+    // Offsets of whole minutes only: older local mean times (seconds) are read one by one.
+    steady = first === last && Number.isInteger(first) ? first : null;
+    if (steadyDays.size >= MAX_STEADY_DAYS) steadyDays.clear();
+    steadyDays.set(key, steady);
+  }
+  return steady ?? offsetOf(ms, wallAt(ms, zone));
+}
+
+/** The wall-clock reading of an instant in a zone: its offset, then plain UTC arithmetic. */
+function wallFast(ms: number, zone: string, offset = offsetAt(ms, zone)): Wall {
+  const d = new Date(ms + offset * 60_000);
+  return { year: d.getUTCFullYear(), month: d.getUTCMonth() + 1, day: d.getUTCDate(), hour: d.getUTCHours(), minute: d.getUTCMinutes(), second: d.getUTCSeconds() };
+}
 
 const pad = (n: number, width = 2) => String(n).padStart(width, "0");
 
@@ -59,13 +87,13 @@ export function zonedTime(date: string, time: string, zone: string): Date {
 
 export function localDate(instant: Date, zone: string): string {
   if (Number.isNaN(instant.getTime())) return INVALID;
-  const w = wallAt(instant.getTime(), zone);
+  const w = wallFast(instant.getTime(), zone);
   return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}`;
 }
 
 export function localTime(instant: Date, zone: string): string {
   if (Number.isNaN(instant.getTime())) return INVALID;
-  const w = wallAt(instant.getTime(), zone);
+  const w = wallFast(instant.getTime(), zone);
   return `${pad(w.hour)}:${pad(w.minute)}`;
 }
 
@@ -84,8 +112,8 @@ export function addDays(date: string, days: number): string {
 export function isoInZone(instant: Date, zone: string): string {
   const ms = instant.getTime();
   if (Number.isNaN(ms)) return INVALID;
-  const w = wallAt(ms, zone);
-  const offset = offsetOf(ms, w);
+  const offset = offsetAt(ms, zone);
+  const w = wallFast(ms, zone, offset);
   const sign = offset < 0 ? "-" : "+";
   return `${pad(w.year, 4)}-${pad(w.month)}-${pad(w.day)}T${pad(w.hour)}:${pad(w.minute)}:${pad(w.second)}${sign}${pad(Math.floor(Math.abs(offset) / 60))}:${pad(Math.abs(offset) % 60)}`;
 }
