@@ -250,7 +250,9 @@ export async function listConsents({ user, status, limit = CONSENT_PAGE.size, cu
   const page = rows.slice(0, limit);
   const last = page.at(-1);
   return {
-    consents: page.map(({ listedAt: _listedAt, ...c }) => c),
+    consents: page.map((c): ConsentListItem => ({
+      id: c.id, appointmentId: c.appointmentId, status: c.status, signedAt: c.signedAt, createdAt: c.createdAt, visitStartsAt: c.visitStartsAt, patient: c.patient,
+    })),
     nextCursor: rows.length > limit && last ? encodeCursor({ at: last.listedAt, id: last.id }) : null,
   };
 }
