@@ -91,7 +91,7 @@ export default async function ConsentsTodayPage({ searchParams }: { searchParams
                     Visit {when(c.visitStartsAt, timeZone)}{c.signedAt ? ` · signed ${when(c.signedAt, timeZone)}` : ""}
                   </span>
                 </span>
-                <ConsentStatusChip status={c.status} />
+                <span className="self-start sm:self-auto"><ConsentStatusChip status={c.status} /></span>
               </li>
             ))}
           </ul>
