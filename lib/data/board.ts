@@ -2,7 +2,7 @@
 // on them with planned, actual and projected stage times, and the conflicts of the projection.
 import "server-only";
 import { Op } from "sequelize";
-import { Appointment, AppointmentStage, Clinic, Equipment, EquipmentOutage, Material, MaterialMode, OpeningHour, Patient, User } from "@/db/models";
+import { Appointment, AppointmentStage, Clinic, Equipment, EquipmentOutage, Material, MaterialMode, OpeningHour, Patient, User, sequelize } from "@/db/models";
 import { withDefaults } from "@/lib/domain/clinic-settings";
 import { projectDay, type BoardVisitInput, type Conflict, type DeviceKind } from "@/lib/domain/day-board";
 import { stageLabel } from "@/lib/domain/timeline";
@@ -105,15 +105,28 @@ export async function loadBoard({ clinicId, day: wanted, now = new Date() }: { c
   const dayEnd = zonedTime(addDays(day, 1), "00:00", zone);
   const isToday = localDate(now, zone) === day;
 
+  // One range overlap (the GiST index of migration 0017 and its statistics), not two comparisons whose
+  // selectivities multiply; stages and materials by one query each rather than joined in, so each
+  // visit's row is not repeated per stage and per material mode.
+  const dayRange = `tstzrange(${sequelize.escape(dayStart.toISOString())}, ${sequelize.escape(dayEnd.toISOString())})`;
   const visits = await Appointment.findAll({
-    where: { clinicId, status: { [Op.in]: ON_BOARD }, startsAt: { [Op.lt]: dayEnd }, endsAt: { [Op.gt]: dayStart } },
-    include: [
-      { model: AppointmentStage, as: "stages" },
-      { model: Patient, as: "patient", include: [{ model: User, as: "user", attributes: ["name"] }] },
-      { model: Material, as: "material", include: [{ model: MaterialMode, as: "modes" }] },
-    ],
-    order: [["startsAt", "ASC"], [{ model: AppointmentStage, as: "stages" }, "seq", "ASC"]],
+    where: {
+      clinicId,
+      status: { [Op.in]: ON_BOARD },
+      [Op.and]: [sequelize.literal(`tstzrange("appointment"."starts_at", "appointment"."ends_at") && ${dayRange}`)],
+    },
+    include: [{ model: Patient, as: "patient", attributes: ["id", "userId"], include: [{ model: User, as: "user", attributes: ["name"] }] }],
+    order: [["startsAt", "ASC"], ["id", "ASC"]],
   });
+  const ids = visits.map((v) => v.id);
+  const stageRows = ids.length ? await AppointmentStage.findAll({ where: { appointmentId: { [Op.in]: ids } }, order: [["appointmentId", "ASC"], ["seq", "ASC"]] }) : [];
+  const stagesOf = new Map<string, AppointmentStage[]>();
+  for (const s of stageRows) stagesOf.set(s.appointmentId, [...(stagesOf.get(s.appointmentId) ?? []), s]);
+  const materialIds = [...new Set(visits.map((v) => v.materialId))];
+  const materials = materialIds.length
+    ? await Material.findAll({ where: { id: { [Op.in]: materialIds } }, include: [{ model: MaterialMode, as: "modes" }] })
+    : [];
+  const materialOf = new Map(materials.map((m) => [m.id, m]));
   const equipment = await Equipment.findAll({ where: { clinicId }, order: [["name", "ASC"]] });
   const used = new Set(visits.flatMap((v) => [v.chairId, v.millId, v.furnaceId]));
   const lanesEq = equipment
@@ -132,7 +145,7 @@ export async function loadBoard({ clinicId, day: wanted, now = new Date() }: { c
     status: v.status,
     dentistId: v.dentistId,
     devices: { chair: v.chairId, mill: v.millId, furnace: v.furnaceId },
-    stages: (v.stages ?? []).map((s) => ({
+    stages: (stagesOf.get(v.id) ?? []).map((s) => ({
       key: s.key as StageKey,
       equipment: s.equipment,
       plannedStart: s.plannedStart.getTime(),
@@ -150,18 +163,27 @@ export async function loadBoard({ clinicId, day: wanted, now = new Date() }: { c
     bufferMinutes: settings.bufferMinutes,
   });
 
-  const iso = (ms: number | Date) => isoInZone(new Date(ms), zone);
+  // Stage edges repeat (one stage's end is the next one's start; most projections equal the plan).
+  const isoCache = new Map<number, string>();
+  const iso = (at: number | Date) => {
+    const key = typeof at === "number" ? at : at.getTime();
+    let text = isoCache.get(key);
+    if (text === undefined) isoCache.set(key, (text = isoInZone(new Date(key), zone)));
+    return text;
+  };
+  const projected = new Map(projection.visits.map((x) => [x.id, x]));
   const boardVisits: BoardVisit[] = visits.map((v) => {
-    const p = projection.visits.find((x) => x.id === v.id)!;
-    const modeRow = v.material?.modes?.find((m) => m.mode === v.mode);
-    const label = (key: StageKey) => (v.material && modeRow ? stageLabel(key, { material: v.material, mode: modeRow }) : stageLabel(key));
+    const p = projected.get(v.id)!;
+    const material = materialOf.get(v.materialId);
+    const modeRow = material?.modes?.find((m) => m.mode === v.mode);
+    const label = (key: StageKey) => (material && modeRow ? stageLabel(key, { material, mode: modeRow }) : stageLabel(key));
     return {
       id: v.id,
       status: v.status,
       patientId: v.patientId,
       initials: initialsOf(v.patient?.user?.name),
       tooth: { fdi: v.tooth, label: describeTooth(v.tooth).label },
-      material: v.material?.name ?? "",
+      material: material?.name ?? "",
       mode: v.mode,
       dentist: dentistName.get(v.dentistId) ?? "Dentist",
       lanes: { chair: v.chairId, mill: v.millId, furnace: v.furnaceId },

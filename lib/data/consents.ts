@@ -18,6 +18,7 @@ import {
 } from "@/lib/consent/record";
 import { decodeSignature } from "@/lib/consent/signature";
 import { sha256Hex } from "@/lib/domain/consent-hash";
+import { decodeCursor, encodeCursor } from "@/lib/domain/list-cursor";
 import { answerLines, type ConsentFlag } from "@/lib/domain/consent-questionnaire";
 import { nameKey, templateFormSchema, type SignConsentInput } from "@/lib/domain/consent-schemas";
 import { parseConsentText, templateProblems, type AssembledConsent, type TemplateSection } from "@/lib/domain/consent-text";
@@ -202,17 +203,58 @@ export async function reviewConsent({ user, consentId, ip, userAgent, now = new 
   });
 }
 
-export async function listConsents({ user, status }: { user: SessionUser; status?: string | null }) {
+export const CONSENT_PAGE = { size: 50, max: 100 };
+
+export type ConsentListItem = {
+  id: string;
+  appointmentId: string;
+  status: ConsentStatus;
+  signedAt: Date | null;
+  createdAt: Date;
+  visitStartsAt: Date;
+  patient: string;
+};
+
+/**
+ * One page of the clinic's consents, newest first: by when each was signed (or, not yet signed,
+ * created), then by id, so rows sharing a time keep one order across pages. `cursor` is the
+ * `nextCursor` of the page before; `nextCursor` is null on the last page.
+ */
+export async function listConsents({ user, status, limit = CONSENT_PAGE.size, cursor }: { user: SessionUser; status?: string | null; limit?: number; cursor?: string | null }) {
   if (!STAFF.includes(user.role) || !user.clinicId) throw forbidden();
   if (status && !(CONSENT_STATUSES as readonly string[]).includes(status)) {
     throw badRequest(`Status must be one of: ${CONSENT_STATUSES.join(", ")}.`, "status");
   }
-  const rows = await Consent.findAll({
-    where: { clinicId: user.clinicId, ...(status ? { status } : {}) },
-    attributes: ["id", "appointmentId", "status", "signedAt"],
-    order: [["signedAt", "DESC NULLS LAST"], ["createdAt", "DESC"]],
-  });
-  return rows.map((c) => ({ id: c.id, appointmentId: c.appointmentId, status: c.status, signedAt: c.signedAt }));
+  if (!Number.isInteger(limit) || limit < 1 || limit > CONSENT_PAGE.max) throw badRequest(`Limit must be a whole number from 1 to ${CONSENT_PAGE.max}.`, "limit");
+  const after = cursor ? decodeCursor(cursor) : null;
+  if (cursor && !after) throw badRequest("That page link is not valid. Start again from the newest consents.", "cursor");
+  const bind: unknown[] = [user.clinicId];
+  const param = (v: unknown) => `$${bind.push(v)}`;
+  // The row comparison and the order match the (clinic_id[, status], listed time, id) indexes of
+  // migration 0017, read backwards: a page costs its own rows, however many came before.
+  const rows = await sequelize.query<ConsentListItem & { listedAt: string }>(
+    `SELECT k.id, k.appointment_id AS "appointmentId", k.status, k.signed_at AS "signedAt", k.created_at AS "createdAt",
+            a.starts_at AS "visitStartsAt", coalesce(u.name, u.email) AS patient,
+            to_char(coalesce(k.signed_at, k.created_at) AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS "listedAt"
+       FROM consents k
+       JOIN appointments a ON a.id = k.appointment_id
+       JOIN patients p ON p.id = k.patient_id
+       JOIN users u ON u.id = p.user_id
+      WHERE k.clinic_id = $1
+        ${status ? `AND k.status = ${param(status)}` : ""}
+        ${after ? `AND (coalesce(k.signed_at, k.created_at), k.id) < (${param(after.at)}::timestamptz, ${param(after.id)}::uuid)` : ""}
+      ORDER BY coalesce(k.signed_at, k.created_at) DESC, k.id DESC
+      LIMIT ${param(limit + 1)}`,
+    { bind, type: QueryTypes.SELECT },
+  );
+  const page = rows.slice(0, limit);
+  const last = page.at(-1);
+  return {
+    consents: page.map((c): ConsentListItem => ({
+      id: c.id, appointmentId: c.appointmentId, status: c.status, signedAt: c.signedAt, createdAt: c.createdAt, visitStartsAt: c.visitStartsAt, patient: c.patient,
+    })),
+    nextCursor: rows.length > limit && last ? encodeCursor({ at: last.listedAt, id: last.id }) : null,
+  };
 }
 
 /** A sealed PDF of a consent: the latest version unless one is asked for. */

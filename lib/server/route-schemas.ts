@@ -13,7 +13,12 @@ export const visitAvailabilityQuery = z.object({
 
 export const boardQuery = z.object({ day: calendarDateSchema("day").optional() });
 
-export const consentListQuery = z.object({ status: z.string().max(40).optional() });
+const LIMIT_MESSAGE = "Limit must be a whole number from 1 to 100.";
+export const consentListQuery = z.object({
+  status: z.string().max(40).optional(),
+  limit: z.coerce.number<number>({ message: LIMIT_MESSAGE }).int({ message: LIMIT_MESSAGE }).min(1, { message: LIMIT_MESSAGE }).max(100, { message: LIMIT_MESSAGE }).optional(),
+  cursor: z.string().max(200, { message: "That page link is not valid. Start again from the newest consents." }).optional(),
+});
 
 export const consentPdfQuery = z.object({
   version: z.coerce.number<number>({ message: "Version must be a whole number from 1." }).int({ message: "Version must be a whole number from 1." }).min(1, { message: "Version must be a whole number from 1." }).max(10_000).optional(),

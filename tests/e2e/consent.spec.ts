@@ -177,6 +177,12 @@ test.describe.serial("informed consent", () => {
       await expect(tobias.getByTestId("consent-status")).toHaveText(/Signed/);
       await expectNoAxeViolations(page);
       await page.screenshot({ path: "test-results/consents-today-1024.png", fullPage: true });
+      // Below today's list, every consent record of the clinic, newest first, a page at a time.
+      await expect(page.getByRole("heading", { level: 2, name: "All consent records" })).toBeVisible();
+      await expect(page.getByTestId("consent-record").filter({ hasText: "Tobias Renfrew" }).first()).toBeVisible();
+      await page.goto("/clinic/consents?cursor=not-a-page-of-ours");
+      await expect(page.getByTestId("consent-records-invalid")).toContainText("That page link is not valid.");
+      await expect(page.getByTestId("consent-row").first()).toBeVisible();
 
       await page.goto(`/clinic/consents/${visitId}`);
       await expect(page.getByRole("heading", { level: 1 })).toHaveText("Zoë Halvorsen-Ruiz");
@@ -201,7 +207,8 @@ test.describe.serial("informed consent", () => {
 
       // The API contract for the list.
       const list = await (await page.request.get("/api/consents?status=reviewed")).json();
-      expect(list.consents).toContainEqual({ id: consent.id, appointmentId: visitId, status: "reviewed", signedAt: expect.any(String) });
+      expect(list.consents).toContainEqual(expect.objectContaining({ id: consent.id, appointmentId: visitId, status: "reviewed", signedAt: expect.any(String) }));
+      expect(list.nextCursor).toBeNull();
     });
 
     test("staff check a PDF: the issued file matches, one changed byte does not", async ({ page }) => {

@@ -10,12 +10,12 @@ export const dynamic = "force-dynamic";
 // A drawn signature is at most 200 kB of PNG (about 270 kB as base64) plus the answers.
 const MAX_BODY = 400_000;
 
-/** The clinic's consents, optionally by status (staff). */
+/** The clinic's consents a page at a time, newest first, optionally by status (staff). */
 export const GET = route(async (req: NextRequest) => {
   const user = await requireUser(STAFF_ROLES);
-  const { status } = parseQuery(req, consentListQuery);
-  const consents = await listConsents({ user, status });
-  return NextResponse.json({ consents });
+  const { status, limit, cursor } = parseQuery(req, consentListQuery);
+  const { consents, nextCursor } = await listConsents({ user, status, limit, cursor });
+  return NextResponse.json({ consents, nextCursor });
 });
 
 /** The patient signs their visit's consent. */
