@@ -11,6 +11,7 @@ import type { Role } from "@/db/models/user";
 import { AppError, forbidden, unauthorised } from "@/lib/server/errors";
 import { accountState } from "./account";
 import { mustSetUpTwoFactor, sessionProblem } from "./options";
+import { decodeSessionToken } from "./session-token";
 
 export type SessionUser = Session["user"];
 export const STAFF_ROLES: Role[] = ["reception", "dentist", "admin"];
@@ -26,7 +27,7 @@ type Options = {
 // next-auth's `jwt` callback, without building next-auth's whole request handler (which
 // getServerSession does, and which cannot renew the cookie from here anyway).
 const readSession = cache(async (): Promise<SessionUser | null> => {
-  const token = await getToken({ req: { cookies: await cookies(), headers: {} } as unknown as Parameters<typeof getToken>[0]["req"] });
+  const token = await getToken({ req: { cookies: await cookies(), headers: {} } as unknown as Parameters<typeof getToken>[0]["req"], decode: decodeSessionToken });
   if (!token?.sub) return null;
   const state = await accountState(token.sub);
   if (sessionProblem(token, state)) return null;
