@@ -12,24 +12,30 @@ export type Alternative = { start: string; end: string };
 
 export async function sharedAlternatives(key: string, compute: (transaction: Transaction) => Promise<Alternative[]>): Promise<Alternative[]> {
   return sequelize.transaction(async (transaction) => {
-    const q = <T extends object>(sql: string, replacements: Record<string, unknown>) => sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT, transaction });
-    await q(`SELECT pg_advisory_xact_lock(hashtextextended(:key, 0)) AS locked`, { key: `alternatives ${key}` });
-    // clock_timestamp, not now(): a waiter's transaction began before the answer it is about to read.
-    const [fresh] = await q<{ alternatives: Alternative[] }>(
-      `SELECT alternatives FROM booking_alternatives WHERE key = :key AND computed_at > clock_timestamp() - make_interval(secs => :fresh)`,
-      { key, fresh: FRESH_SECONDS },
-    );
-    if (fresh) return fresh.alternatives;
-    const alternatives = await compute(transaction);
-    await sequelize.query(
-      `INSERT INTO booking_alternatives (key, computed_at, alternatives) VALUES (:key, clock_timestamp(), :alternatives::jsonb)
-       ON CONFLICT (key) DO UPDATE SET computed_at = EXCLUDED.computed_at, alternatives = EXCLUDED.alternatives`,
-      { replacements: { key, alternatives: JSON.stringify(alternatives) }, transaction },
-    );
-    // Old answers are useless; a few computations in a hundred clear them out.
-    if (Math.random() < 0.05) {
-      await sequelize.query(`DELETE FROM booking_alternatives WHERE computed_at < clock_timestamp() - interval '10 minutes'`, { transaction });
-    }
-    return alternatives;
+    await sequelize.query(`SELECT pg_advisory_xact_lock(hashtextextended(:key, 0)) AS locked`, { replacements: { key: `alternatives ${key}` }, type: QueryTypes.SELECT, transaction });
+    return alternativesWithin(transaction, key, compute);
   });
+}
+
+/** The stored answer if fresh, else computed and stored, in the caller's transaction. The caller
+ *  holds a lock that keeps others with the same key waiting (the advisory lock above, or the
+ *  clinic's schedule turn a booking holds). */
+export async function alternativesWithin(transaction: Transaction, key: string, compute: (transaction: Transaction) => Promise<Alternative[]>): Promise<Alternative[]> {
+  // clock_timestamp, not now(): a waiter's transaction began before the answer it is about to read.
+  const [fresh] = await sequelize.query<{ alternatives: Alternative[] }>(
+    `SELECT alternatives FROM booking_alternatives WHERE key = :key AND computed_at > clock_timestamp() - make_interval(secs => :fresh)`,
+    { replacements: { key, fresh: FRESH_SECONDS }, type: QueryTypes.SELECT, transaction },
+  );
+  if (fresh) return fresh.alternatives;
+  const alternatives = await compute(transaction);
+  await sequelize.query(
+    `INSERT INTO booking_alternatives (key, computed_at, alternatives) VALUES (:key, clock_timestamp(), :alternatives::jsonb)
+     ON CONFLICT (key) DO UPDATE SET computed_at = EXCLUDED.computed_at, alternatives = EXCLUDED.alternatives`,
+    { replacements: { key, alternatives: JSON.stringify(alternatives) }, transaction },
+  );
+  // Old answers are useless; a few computations in a hundred clear them out.
+  if (Math.random() < 0.05) {
+    await sequelize.query(`DELETE FROM booking_alternatives WHERE computed_at < clock_timestamp() - interval '10 minutes'`, { transaction });
+  }
+  return alternatives;
 }

@@ -14,7 +14,7 @@ import { askDeposit } from "@/lib/payments/deposits";
 import { recordAudit } from "@/lib/server/audit";
 import { AppError, badRequest, conflict, notFound } from "@/lib/server/errors";
 import { loadBusy, loadResources, loadRules, loadTimeline, readClinic } from "./context";
-import { sharedAlternatives } from "./alternatives";
+import { alternativesWithin, sharedAlternatives, type Alternative } from "./alternatives";
 import { writeSchedule } from "./schedule";
 import { searchSlots } from "./search";
 import "@/lib/mail/hooks";
@@ -38,7 +38,7 @@ function assertBookableTime(rules: AvailabilityRules, timeline: Timeline, start:
   }
 }
 
-async function placeAt(opts: { clinic: Clinic; proposal: Pick<Proposal, "dentistId">; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
+async function placeAt(opts: { clinic: { id: string }; proposal: Pick<Proposal, "dentistId">; timeline: Timeline; furnaceIds: string[] | null; start: Date; now: Date; excludeAppointmentId?: string; transaction: Transaction }) {
   const setup = (await readClinic(opts.clinic.id, opts.transaction))!;
   const rules = await loadRules(setup, opts.transaction);
   assertBookableTime(rules, opts.timeline, opts.start, opts.now);
@@ -58,15 +58,27 @@ async function placeAt(opts: { clinic: Clinic; proposal: Pick<Proposal, "dentist
   return { assignment, rules };
 }
 
-/** The nearest free times to `wanted`, shared by every request that lost the same race. */
-async function alternatives(proposal: Pick<Proposal, "clinicId" | "dentistId" | "tooth">, materialId: string, mode: Mode, wanted: Date, zone: string, now: Date, excludeAppointmentId?: string) {
-  const key = [proposal.clinicId, proposal.dentistId, materialId, mode, fromFdi(proposal.tooth).toothClass, wanted.toISOString(), excludeAppointmentId ?? ""].join(" ");
-  return sharedAlternatives(key, async (transaction) => {
-    const day = localDate(wanted, zone);
-    const { slots } = await searchSlots({ proposal, materialId, mode, from: addDays(day, -3), days: 7, now, excludeAppointmentId, transaction });
-    return nearest(slots, wanted, 3).map((s) => ({ start: isoInZone(s.start, zone), end: isoInZone(s.end, zone) }));
-  });
+type AlternativesQuestion = { proposal: Pick<Proposal, "clinicId" | "dentistId" | "tooth">; materialId: string; mode: Mode; wanted: Date; zone: string; now: Date; excludeAppointmentId?: string };
+
+function alternativesKey(q: AlternativesQuestion) {
+  return [q.proposal.clinicId, q.proposal.dentistId, q.materialId, q.mode, fromFdi(q.proposal.tooth).toothClass, q.wanted.toISOString(), q.excludeAppointmentId ?? ""].join(" ");
 }
+
+function computeAlternatives(q: AlternativesQuestion) {
+  return async (transaction: Transaction) => {
+    const day = localDate(q.wanted, q.zone);
+    const { slots } = await searchSlots({ proposal: q.proposal, materialId: q.materialId, mode: q.mode, from: addDays(day, -3), days: 7, now: q.now, excludeAppointmentId: q.excludeAppointmentId, transaction });
+    return nearest(slots, q.wanted, 3).map((s) => ({ start: isoInZone(s.start, q.zone), end: isoInZone(s.end, q.zone) }));
+  };
+}
+
+/** The nearest free times to `wanted`, shared by every request that lost the same race. */
+async function alternatives(q: AlternativesQuestion) {
+  return sharedAlternatives(alternativesKey(q), computeAlternatives(q));
+}
+
+const slotTaken = (alternatives: Alternative[]) =>
+  new AppError(409, "That time was just taken. Here are the nearest free times.", { code: "slot_taken", extra: { alternatives } });
 
 /**
  * Bookings and moves at one clinic take turns: each waits for the clinic's schedule lock (held until
@@ -96,17 +108,28 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
   const p = await getBookableProposal({ user: actor.user, id: opts.proposalId });
   if (p.status !== "open") throw conflict("This proposal is closed: ask the clinic for a new one.");
   const option = allowedOption(p, opts.materialId, opts.mode);
-  const [clinic, setup] = await Promise.all([Clinic.findByPk(p.clinicId).then((c) => c!), readClinic(p.clinicId).then((c) => c!)]);
-  const { timeline, furnaceIds } = await loadTimeline({ clinicId: clinic.id, clinic: setup, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
+  const setup = (await readClinic(p.clinicId))!;
+  const { timeline, furnaceIds } = await loadTimeline({ clinicId: setup.id, clinic: setup, materialId: opts.materialId, mode: opts.mode, tooth: p.tooth });
   assertBookableTime(await loadRules(setup), timeline, opts.start, now);
+  const question: AlternativesQuestion = { proposal: p, materialId: opts.materialId, mode: opts.mode, wanted: opts.start, zone: setup.timeZone, now };
 
   for (let attempt = 1; ; attempt++) {
     try {
-      return await sequelize.transaction(async (transaction) => {
-        await takeScheduleTurn(clinic.id, transaction);
-        const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, transaction });
+      const outcome = await sequelize.transaction(async (transaction): Promise<{ booked: Appointment } | { taken: Alternative[] }> => {
+        await takeScheduleTurn(setup.id, transaction);
+        const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, attributes: ["id"], transaction });
         if (active) throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.", { appointmentId: active.id });
-        const { assignment, rules } = await placeAt({ clinic, proposal: p, timeline, furnaceIds, start: opts.start, now, transaction });
+        let placed: Awaited<ReturnType<typeof placeAt>>;
+        try {
+          placed = await placeAt({ clinic: setup, proposal: p, timeline, furnaceIds, start: opts.start, now, transaction });
+        } catch (err) {
+          if (!(err instanceof SlotTaken)) throw err;
+          // Still in this clinic's turn: the nearest free times are read (or worked out once and
+          // kept for the next losers) here, without another transaction or lock.
+          return { taken: await alternativesWithin(transaction, alternativesKey(question), computeAlternatives(question)) };
+        }
+        const { assignment, rules } = placed;
+        const clinic = (await Clinic.findByPk(setup.id, { transaction }))!;
         // A new visit starts with the patient's standing reminder preference; they can still change it per visit.
         const patient = await Patient.findByPk(p.patientId, { attributes: ["reminders"], transaction });
         const appointment = await Appointment.create(
@@ -135,8 +158,10 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
           { clinicId: clinic.id, actorUserId: actor.user.id, action: "visit.requested", subjectType: "appointment", subjectId: appointment.id, ip: actor.ip, userAgent: actor.userAgent, data: { start: opts.start.toISOString(), materialId: opts.materialId, mode: opts.mode } },
           transaction,
         );
-        return appointment;
+        return { booked: appointment };
       });
+      if ("taken" in outcome) throw slotTaken(outcome.taken);
+      return outcome.booked;
     } catch (err) {
       if (err instanceof UniqueConstraintError && String(err.parent?.message ?? "").includes("appointments_one_active_per_proposal")) {
         throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.");
@@ -144,10 +169,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
       if (!isRaceLoss(err)) throw err;
       // Another booking took a resource between our read and our insert: look again, maybe another chair or mill is free.
       if (err instanceof SlotTaken || attempt >= ATTEMPTS) {
-        throw new AppError(409, "That time was just taken. Here are the nearest free times.", {
-          code: "slot_taken",
-          extra: { alternatives: await alternatives(p, opts.materialId, opts.mode, opts.start, clinic.timeZone, now) },
-        });
+        throw slotTaken(await alternatives(question));
       }
     }
   }
@@ -186,7 +208,7 @@ export async function rescheduleVisit(opts: { appointment: Appointment; start: D
     if (!isRaceLoss(err)) throw err;
     throw new AppError(409, "That time is not free any more. Here are the nearest free times.", {
       code: "slot_taken",
-      extra: { alternatives: await alternatives(proposal, appointment.materialId, appointment.mode, opts.start, clinic.timeZone, now, appointment.id) },
+      extra: { alternatives: await alternatives({ proposal, materialId: appointment.materialId, mode: appointment.mode, wanted: opts.start, zone: clinic.timeZone, now, excludeAppointmentId: appointment.id }) },
     });
   }
 }

@@ -1,13 +1,14 @@
 // API answers get their cache and transport headers from next.config.mjs, not from the proxy (which
 // runs for pages only). The values must be the ones the proxy gives pages.
 import { describe, expect, it } from "vitest";
+// @ts-expect-error next.config.mjs is plain JavaScript, without type declarations
 import nextConfig from "../../next.config.mjs";
 import { isHttps, STRICT_TRANSPORT_SECURITY } from "@/lib/server/security-headers";
 
 type Rule = { source: string; has?: { type: string; key: string; value?: string }[]; headers: { key: string; value: string }[] };
 
 async function apiRules(): Promise<Rule[]> {
-  const rules = (await nextConfig.headers!()) as Rule[];
+  const rules = (await (nextConfig as { headers: () => Promise<Rule[]> }).headers());
   return rules.filter((r) => r.source === "/api/:path*");
 }
 

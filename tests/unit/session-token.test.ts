@@ -6,7 +6,7 @@ import { describe, expect, it } from "vitest";
 import { decodeSessionToken, sessionKey } from "@/lib/auth/session-token";
 
 const secret = "test-secret-0123456789abcdef-0123456789";
-const claims = { sub: "6d0c1a2b-0000-4000-8000-000000000001", email: "amélie@example.test", name: "Amélie", role: "patient", sv: 3, authAt: 1_790_000_000 };
+const claims = { sub: "6d0c1a2b-0000-4000-8000-000000000001", email: "amélie@example.test", name: "Amélie", role: "patient" as const, sv: 3, authAt: 1_790_000_000 };
 
 describe("session token", () => {
   it("derives the key next-auth derives", async () => {
