@@ -22,7 +22,7 @@ export default defineConfig({
     { name: "phone", use: { ...devices["Desktop Chrome"], viewport: { width: 390, height: 844 }, isMobile: false, hasTouch: true } },
   ],
   webServer: {
-    command: `node scripts/server.mjs -p ${port}`,
+    command: `node --max-old-space-size=384 scripts/server.mjs -p ${port}`,
     url: `http://localhost:${port}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,

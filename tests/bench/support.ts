@@ -73,8 +73,9 @@ export async function startApp(env: NodeJS.ProcessEnv, port: number): Promise<Ch
   if (taken) throw new Error(`Port ${port} is taken by another program; set CUSPAL_TEST_PORT_OFFSET to move the benchmark's port.`);
   // BENCH_CPU_PROF=<dir> writes a CPU profile of the app server there when it stops (open it in Chrome's DevTools).
   const profile = process.env.BENCH_CPU_PROF ? ["--cpu-prof", `--cpu-prof-dir=${path.resolve(process.env.BENCH_CPU_PROF)}`] : [];
-  // The same server `npm start` runs (scripts/server.mjs), not `next start`.
-  const child = spawn(process.execPath, [...profile, path.join(root, "scripts/server.mjs"), "-p", String(port)], { cwd: root, env, stdio: "ignore", detached: true });
+  // The same server, with the same heap cap, as `npm start` (scripts/server.mjs), not `next start`.
+  const { APP_HEAP_FLAG } = (await import(path.join(root, "scripts/lib.mjs"))) as { APP_HEAP_FLAG: string };
+  const child = spawn(process.execPath, [...profile, APP_HEAP_FLAG, path.join(root, "scripts/server.mjs"), "-p", String(port)], { cwd: root, env, stdio: "ignore", detached: true });
   for (let i = 0; i < 150; i++) {
     try {
       if ((await fetch(`http://localhost:${port}/api/health`)).ok) return child;
