@@ -11,22 +11,25 @@ const FRESH_SECONDS = 5;
 export type Alternative = { start: string; end: string };
 
 export async function sharedAlternatives(key: string, compute: (transaction: Transaction) => Promise<Alternative[]>): Promise<Alternative[]> {
+  // Most losers of a race find the answer already there: one read, no transaction, no lock.
+  const ready = await freshAnswer(key);
+  if (ready) return ready;
   return sequelize.transaction(async (transaction) => {
     await sequelize.query(`SELECT pg_advisory_xact_lock(hashtextextended(:key, 0)) AS locked`, { replacements: { key: `alternatives ${key}` }, type: QueryTypes.SELECT, transaction });
-    return alternativesWithin(transaction, key, compute);
+    return (await freshAnswer(key, transaction)) ?? computeAndKeep(transaction, key, compute);
   });
 }
 
-/** The stored answer if fresh, else computed and stored, in the caller's transaction. The caller
- *  holds a lock that keeps others with the same key waiting (the advisory lock above, or the
- *  clinic's schedule turn a booking holds). */
-export async function alternativesWithin(transaction: Transaction, key: string, compute: (transaction: Transaction) => Promise<Alternative[]>): Promise<Alternative[]> {
+async function freshAnswer(key: string, transaction?: Transaction): Promise<Alternative[] | null> {
   // clock_timestamp, not now(): a waiter's transaction began before the answer it is about to read.
   const [fresh] = await sequelize.query<{ alternatives: Alternative[] }>(
     `SELECT alternatives FROM booking_alternatives WHERE key = :key AND computed_at > clock_timestamp() - make_interval(secs => :fresh)`,
     { replacements: { key, fresh: FRESH_SECONDS }, type: QueryTypes.SELECT, transaction },
   );
-  if (fresh) return fresh.alternatives;
+  return fresh?.alternatives ?? null;
+}
+
+async function computeAndKeep(transaction: Transaction, key: string, compute: (transaction: Transaction) => Promise<Alternative[]>): Promise<Alternative[]> {
   const alternatives = await compute(transaction);
   await sequelize.query(
     `INSERT INTO booking_alternatives (key, computed_at, alternatives) VALUES (:key, clock_timestamp(), :alternatives::jsonb)

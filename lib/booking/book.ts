@@ -14,7 +14,7 @@ import { askDeposit } from "@/lib/payments/deposits";
 import { recordAudit } from "@/lib/server/audit";
 import { AppError, badRequest, conflict, notFound } from "@/lib/server/errors";
 import { loadBusy, loadResources, loadRules, loadTimeline, readClinic } from "./context";
-import { alternativesWithin, sharedAlternatives, type Alternative } from "./alternatives";
+import { sharedAlternatives, type Alternative } from "./alternatives";
 import { writeSchedule } from "./schedule";
 import { searchSlots } from "./search";
 import "@/lib/mail/hooks";
@@ -45,6 +45,8 @@ async function placeAt(opts: { clinic: { id: string }; proposal: Pick<Proposal, 
   const all = await loadResources(setup, opts.proposal.dentistId, opts.transaction);
   // Only furnaces able to run the visit's firing programmes.
   const resources = opts.furnaceIds ? { ...all, furnace: all.furnace.filter((id) => opts.furnaceIds!.includes(id)) } : all;
+  // Everything else was read first: the clinic's turn is held for as short a time as possible.
+  await takeScheduleTurn(opts.clinic.id, opts.transaction);
   const busy = await loadBusy({
     clinicId: opts.clinic.id,
     resources,
@@ -82,7 +84,7 @@ const slotTaken = (alternatives: Alternative[]) =>
 
 /**
  * Bookings and moves at one clinic take turns: each waits for the clinic's schedule lock (held until
- * its transaction ends) before reading what is busy. Of fifty patients asking for the same time, the
+ * its transaction ends; taking it twice in one transaction does not wait) before reading what is busy. Of fifty patients asking for the same time, the
  * first books and the others then see the time taken at once and are offered the nearest free
  * times, instead of all writing a visit, colliding on the exclusion constraint and retrying. The
  * constraint stays the guarantee; the lock only saves the losers' work. A clinic books a few visits
@@ -115,8 +117,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
 
   for (let attempt = 1; ; attempt++) {
     try {
-      const outcome = await sequelize.transaction(async (transaction): Promise<{ booked: Appointment } | { taken: Alternative[] }> => {
-        await takeScheduleTurn(setup.id, transaction);
+      const outcome = await sequelize.transaction(async (transaction): Promise<{ booked: Appointment } | { taken: true }> => {
         const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, attributes: ["id"], transaction });
         if (active) throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.", { appointmentId: active.id });
         let placed: Awaited<ReturnType<typeof placeAt>>;
@@ -124,9 +125,8 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
           placed = await placeAt({ clinic: setup, proposal: p, timeline, furnaceIds, start: opts.start, now, transaction });
         } catch (err) {
           if (!(err instanceof SlotTaken)) throw err;
-          // Still in this clinic's turn: the nearest free times are read (or worked out once and
-          // kept for the next losers) here, without another transaction or lock.
-          return { taken: await alternativesWithin(transaction, alternativesKey(question), computeAlternatives(question)) };
+          // Ends the transaction, and with it the clinic's turn, before the nearest times are looked up.
+          return { taken: true };
         }
         const { assignment, rules } = placed;
         const clinic = (await Clinic.findByPk(setup.id, { transaction }))!;
@@ -160,7 +160,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
         );
         return { booked: appointment };
       });
-      if ("taken" in outcome) throw slotTaken(outcome.taken);
+      if ("taken" in outcome) throw slotTaken(await alternatives(question));
       return outcome.booked;
     } catch (err) {
       if (err instanceof UniqueConstraintError && String(err.parent?.message ?? "").includes("appointments_one_active_per_proposal")) {
