@@ -2,6 +2,7 @@
 // session version, and the second factor (codes and recovery codes).
 import "server-only";
 import { QueryTypes, type Transaction } from "sequelize";
+import { selectRows } from "@/db/select-rows";
 import { sequelize } from "@/db/sequelize";
 import type { Role } from "@/db/models/user";
 import { recordAudit } from "@/lib/server/audit";
@@ -22,12 +23,12 @@ export type AccountState = {
 
 /** One primary-key lookup (with the clinic's row by its key): what a session is checked against. */
 export async function accountState(userId: string): Promise<AccountState | null> {
-  const rows = await sequelize.query<AccountState>(
+  const rows = await selectRows<AccountState>(
     `SELECT u.active, u.role, u.clinic_id AS "clinicId", u.session_version AS "sessionVersion",
             u.totp_enabled_at IS NOT NULL AS enrolled, coalesce(c.require_two_factor, false) AS "requireTwoFactor"
        FROM users u LEFT JOIN clinics c ON c.id = u.clinic_id
-      WHERE u.id = :userId`,
-    { replacements: { userId }, type: QueryTypes.SELECT },
+      WHERE u.id = $1`,
+    [userId],
   );
   return rows[0] ?? null;
 }

@@ -1,8 +1,9 @@
 // Booking a visit: one appointment, its planned stages and one reservation per resource per stage
 // window, all in one transaction. PostgreSQL's exclusion constraint on reservations is the final
 // guard against double booking: of two concurrent requests for the same resources, one fails.
-import { Op, UniqueConstraintError, ExclusionConstraintError, type Transaction } from "sequelize";
+import { UniqueConstraintError, ExclusionConstraintError, type Transaction } from "sequelize";
 import { Appointment, AppointmentStage, Clinic, Patient, Proposal, Reservation, sequelize } from "@/db/models";
+import { selectRows } from "@/db/select-rows";
 import { allowedOption, getBookableProposal } from "@/lib/data/proposals";
 import type { SessionUser } from "@/lib/auth/session";
 import { assign, holdsFor, isCandidateStart, nearest, type AvailabilityRules } from "@/lib/domain/availability";
@@ -118,7 +119,7 @@ export async function bookVisit(opts: { proposalId: string; materialId: string; 
   for (let attempt = 1; ; attempt++) {
     try {
       const outcome = await sequelize.transaction(async (transaction): Promise<{ booked: Appointment } | { taken: true }> => {
-        const active = await Appointment.findOne({ where: { proposalId: p.id, status: { [Op.in]: [...ACTIVE_STATUSES] } }, attributes: ["id"], transaction });
+        const [active] = await selectRows<{ id: string }>(`SELECT id FROM appointments WHERE proposal_id = $1 AND status = ANY($2::text[]) LIMIT 1`, [p.id, [...ACTIVE_STATUSES]], transaction);
         if (active) throw conflict("This proposal already has a visit booked. Move or cancel that visit instead of booking another.", { appointmentId: active.id });
         let placed: Awaited<ReturnType<typeof placeAt>>;
         try {

@@ -9,6 +9,7 @@
 // uncommitted change).
 import { QueryTypes, type Attributes, type Transaction } from "sequelize";
 import { FurnaceProgramme, Material, MaterialMode, sequelize } from "@/db/models";
+import { selectRows } from "@/db/select-rows";
 import type { ClinicSettingsJson } from "@/db/models/clinic";
 import { capableFurnaces, ProgrammeUnavailable, withProgrammeMinutes, type FurnaceProgrammeRow } from "@/lib/domain/furnace-programmes";
 import { BusyIndex, type AvailabilityRules, type Resources } from "@/lib/domain/availability";
@@ -41,9 +42,10 @@ const cached = new Map<string, { version: bigint; settings: Promise<SchedulingSe
 
 /** The clinic's row with its settings version: one primary-key read on every use. */
 export async function readClinic(clinicId: string, transaction?: Transaction): Promise<ClinicRow | null> {
-  const [row] = await sequelize.query<ClinicRow>(
-    `SELECT id, time_zone AS "timeZone", settings, settings_version::text AS "settingsVersion" FROM clinics WHERE id = :clinicId`,
-    { replacements: { clinicId }, type: QueryTypes.SELECT, transaction },
+  const [row] = await selectRows<ClinicRow>(
+    `SELECT id, time_zone AS "timeZone", settings, settings_version::text AS "settingsVersion" FROM clinics WHERE id = $1`,
+    [clinicId],
+    transaction,
   );
   return row ?? null;
 }
@@ -152,18 +154,19 @@ export async function loadResources(clinic: ClinicRow | string, dentistId: strin
 export async function loadBusy(opts: { clinicId: string; resources: Resources; from: Date; to: Date; excludeAppointmentId?: string; transaction?: Transaction }): Promise<BusyIndex> {
   const ids = Object.values(opts.resources).flat();
   if (!ids.length) return new BusyIndex([]);
-  const replacements = { ids, from: opts.from, to: opts.to, exclude: opts.excludeAppointmentId ?? null };
+  const values = [ids, opts.from, opts.to, opts.excludeAppointmentId ?? null];
   // Milliseconds since 1970; an open end is null (unbounded).
   const ends = `extract(epoch FROM lower(during)) * 1000 AS start, extract(epoch FROM upper(during)) * 1000 AS "end"`;
   type Row = { resourceId: string; start: number | string | null; end: number | string | null };
-  const rows = await sequelize.query<Row>(
+  const rows = await selectRows<Row>(
     `SELECT resource_id AS "resourceId", ${ends} FROM reservations
-      WHERE resource_id IN (:ids) AND active AND during && tstzrange(:from, :to)
-        AND (CAST(:exclude AS uuid) IS NULL OR appointment_id IS DISTINCT FROM CAST(:exclude AS uuid))
+      WHERE resource_id = ANY($1::uuid[]) AND active AND during && tstzrange($2, $3)
+        AND ($4::uuid IS NULL OR appointment_id IS DISTINCT FROM $4::uuid)
      UNION ALL
      SELECT equipment_id, ${ends} FROM equipment_outages
-      WHERE equipment_id IN (:ids) AND during && tstzrange(:from, :to)`,
-    { replacements, type: QueryTypes.SELECT, transaction: opts.transaction },
+      WHERE equipment_id = ANY($1::uuid[]) AND during && tstzrange($2, $3)`,
+    values,
+    opts.transaction,
   );
   return new BusyIndex(rows.map((r) => ({
     resourceId: r.resourceId,

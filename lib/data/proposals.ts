@@ -1,7 +1,8 @@
 // Data access for crown proposals.
 import "server-only";
-import { Op, QueryTypes } from "sequelize";
+import { Op } from "sequelize";
 import { Appointment, Material, MaterialMode, Patient, Proposal, ProposalMaterial, User, sequelize } from "@/db/models";
+import { selectRows } from "@/db/select-rows";
 import type { SessionUser } from "@/lib/auth/session";
 import { ACTIVE_STATUSES, type Mode } from "@/lib/domain/types";
 import { describeTooth } from "@/lib/domain/tooth";
@@ -91,7 +92,7 @@ export type BookableProposal = {
  */
 export async function getBookableProposal({ user, id }: { user: SessionUser; id: string }): Promise<BookableProposal> {
   const [row] = /^[0-9a-f-]{36}$/i.test(id)
-    ? await sequelize.query<BookableProposal & { patientUserId: string }>(
+    ? await selectRows<BookableProposal & { patientUserId: string }>(
         `SELECT p.id, p.clinic_id AS "clinicId", p.patient_id AS "patientId", p.dentist_id AS "dentistId", p.tooth, p.fee_cents AS "feeCents", p.status,
                 pat.user_id AS "patientUserId",
                 coalesce(json_agg(json_build_object('materialId', pm.material_id, 'modes', pm.modes, 'feeCents', pm.fee_cents, 'material', json_build_object('name', m.name)))
@@ -100,9 +101,9 @@ export async function getBookableProposal({ user, id }: { user: SessionUser; id:
            JOIN patients pat ON pat.id = p.patient_id
            LEFT JOIN proposal_materials pm ON pm.proposal_id = p.id
            LEFT JOIN materials m ON m.id = pm.material_id
-          WHERE p.id = :id
+          WHERE p.id = $1
           GROUP BY p.id, pat.user_id`,
-        { replacements: { id }, type: QueryTypes.SELECT },
+        [id],
       )
     : [];
   const visible = row && (user.role === "patient" ? row.patientUserId === user.id : row.clinicId === user.clinicId);
