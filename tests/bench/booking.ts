@@ -126,9 +126,10 @@ export async function run300(): Promise<Record<string, string | number>> {
     const availabilityCpu = (serverCpuMs(app) - cpu0) / (availabilityRate * 5);
     const memoryAfterLoad = serverMemory(app)[0]?.rssMb ?? NaN;
 
-    // 50 patients, each with a proposal, all asking for the same start at once.
-    const racers = [];
-    for (let i = 0; i < 50; i++) {
+    // 50 patients, each with a proposal, all asking for the same start at once (and 50 more for the
+    // same race split over two instances).
+    const racers: { cookie: string; proposalId: string }[] = [];
+    for (let i = 0; i < 100; i++) {
       const { user, patient: p } = await makePatient(clinic.id, 10_000 + i);
       const prop = await Proposal.create({ clinicId: clinic.id, patientId: p.id, dentistId: dentists[1].id, tooth: 11, feeCents: 100000, note: null });
       await ProposalMaterial.create({ proposalId: prop.id, materialId: feld.id, modes: ["rapid"] });
@@ -143,19 +144,40 @@ export async function run300(): Promise<Record<string, string | number>> {
       const warm = await fetch(`http://localhost:${PORT}/api/appointments`, { method: "POST", headers: { cookie: racers[0].cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: racers[0].proposalId, materialId: feld.id, mode: "rapid", start: "2000-01-01T09:00:00Z" }) });
       if (warm.status !== 400) throw new Error(`warm-up booking answered ${warm.status}, expected 400 (a past time)`);
     }
-    const latencies: number[] = [];
+    const race = async (who: typeof racers, ports: number[], at: string) => {
+      const latencies: number[] = [];
+      const statuses = await Promise.all(who.map(async (r, i) => {
+        const t = performance.now();
+        const res = await fetch(`http://localhost:${ports[i % ports.length]}/api/appointments`, { method: "POST", headers: { cookie: r.cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: r.proposalId, materialId: feld.id, mode: "rapid", start: at }) });
+        await res.text();
+        latencies.push(performance.now() - t);
+        return res.status;
+      }));
+      return { statuses, latencies };
+    };
     const raceCpu0 = serverCpuMs(app);
-    const statuses = await Promise.all(racers.map(async (r) => {
-      const t = performance.now();
-      const res = await fetch(`http://localhost:${PORT}/api/appointments`, { method: "POST", headers: { cookie: r.cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: r.proposalId, materialId: feld.id, mode: "rapid", start }) });
-      await res.text();
-      latencies.push(performance.now() - t);
-      return res.status;
-    }));
-    const raceCpu = (serverCpuMs(app) - raceCpu0) / racers.length;
+    const { statuses, latencies } = await race(racers.slice(0, 50), [PORT], start);
+    const raceCpu = (serverCpuMs(app) - raceCpu0) / 50;
     const count = (s: number) => statuses.filter((x) => x === s).length;
     const s = stats(latencies);
     const memoryAfterRace = serverMemory(app)[0]?.rssMb ?? NaN;
+
+    // The same race for another free time, its 50 requests split over two instances on one database.
+    const second = await startApp(env, PORT + 1);
+    let split: { statuses: number[]; latencies: number[] };
+    try {
+      const later = await (await fetch(`http://localhost:${PORT}/api/proposals/${racers[50].proposalId}/availability?materialId=${feld.id}&mode=rapid&from=${addDays(from, 1)}&days=60`, { headers: { cookie: racers[50].cookie } })).json();
+      if (!later.slots?.length) throw new Error("No free slot left for the two-instance run.");
+      for (const port of [PORT, PORT + 1]) {
+        for (let i = 0; i < 3; i++) {
+          await (await fetch(`http://localhost:${port}/api/appointments`, { method: "POST", headers: { cookie: racers[50].cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: racers[50].proposalId, materialId: feld.id, mode: "rapid", start: "2000-01-01T09:00:00Z" }) })).text();
+        }
+      }
+      split = await race(racers.slice(50), [PORT, PORT + 1], later.slots[0].start);
+    } finally {
+      stopApp(second);
+    }
+    const splitCount = (st: number) => split.statuses.filter((x) => x === st).length;
     const mb = (n: number) => `${n.toFixed(0)} MB`;
     return {
       "existing visits": placed,
@@ -174,6 +196,8 @@ export async function run300(): Promise<Record<string, string | number>> {
       "50 concurrent bookings: 5xx": `${statuses.filter((x) => x >= 500).length} (target 0)`,
       "50 concurrent bookings: p95 latency": `${ms(s.p95)} (target ≤ 300 ms)`,
       "50 concurrent bookings: max latency": ms(s.max),
+      "50 bookings over two instances: 201 / 409 / 5xx": `${splitCount(201)} / ${splitCount(409)} / ${split.statuses.filter((x) => x >= 500).length} (target 1 / 49 / 0)`,
+      "50 bookings over two instances: p95 latency": `${ms(stats(split.latencies).p95)} (target ≤ 300 ms)`,
       "50 concurrent bookings: server CPU per booking": ms(raceCpu),
       "app server memory (VmRSS) after the availability load": `${mb(memoryAfterLoad)} (target ≤ 300 MB)`,
       "app server memory (VmRSS) after the bookings": `${mb(memoryAfterRace)} (target ≤ 300 MB)`,
