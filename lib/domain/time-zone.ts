@@ -34,8 +34,9 @@ function offsetOf(ms: number, w: Wall): number {
 
 const DAY = 86_400_000;
 const MAX_STEADY_DAYS = 20_000;
-// `${zone} ${UTC day number}` → the zone's offset all that day, or null on a day its offset changes.
-const steadyDays = new Map<string, number | null>();
+// Per zone: UTC day number → the zone's offset all that day, or null on a day its offset changes.
+const steadyDays = new Map<string, Map<number, number | null>>();
+let steadyCount = 0;
 
 /** The zone's offset (minutes) at an instant. Offsets change a few times a year, so one read at each
  *  end of the instant's UTC day serves every instant of that day when the two agree (no zone changes
@@ -43,23 +44,46 @@ const steadyDays = new Map<string, number | null>();
  *  A search formats hundreds of instants over a fortnight: ~30 readings instead of hundreds. */
 function offsetAt(ms: number, zone: string): number {
   const day = Math.floor(ms / DAY);
-  const key = `${zone} ${day}`;
-  let steady = steadyDays.get(key);
+  let days = steadyDays.get(zone);
+  if (!days) steadyDays.set(zone, (days = new Map()));
+  let steady = days.get(day);
   if (steady === undefined) {
     const first = offsetOf(day * DAY, wallAt(day * DAY, zone));
     const last = offsetOf((day + 1) * DAY - 1000, wallAt((day + 1) * DAY - 1000, zone));
     // Offsets of whole minutes only: older local mean times (seconds) are read one by one.
     steady = first === last && Number.isInteger(first) ? first : null;
-    if (steadyDays.size >= MAX_STEADY_DAYS) steadyDays.clear();
-    steadyDays.set(key, steady);
+    if (++steadyCount > MAX_STEADY_DAYS) {
+      steadyDays.clear();
+      steadyCount = 1;
+      steadyDays.set(zone, (days = new Map()));
+    }
+    days.set(day, steady);
   }
   return steady ?? offsetOf(ms, wallAt(ms, zone));
 }
 
-/** The wall-clock reading of an instant in a zone: its offset, then plain UTC arithmetic. */
+/** The wall-clock reading of an instant in a zone: its offset, then arithmetic (no Date objects,
+ *  which the server runtime wraps and makes costly). */
 function wallFast(ms: number, zone: string, offset = offsetAt(ms, zone)): Wall {
-  const d = new Date(ms + offset * 60_000);
-  return { year: d.getUTCFullYear(), month: d.getUTCMonth() + 1, day: d.getUTCDate(), hour: d.getUTCHours(), minute: d.getUTCMinutes(), second: d.getUTCSeconds() };
+  const local = Math.floor(ms / 1000) + offset * 60;
+  const days = Math.floor(local / 86_400);
+  const secs = local - days * 86_400;
+  const { year, month, day } = civilFromDays(days);
+  return { year, month, day, hour: Math.floor(secs / 3600), minute: Math.floor((secs % 3600) / 60), second: secs % 60 };
+}
+
+/** Proleptic Gregorian year, month and day of a count of days since 1970-01-01: Howard Hinnant's
+ *  public-domain `civil_from_days` ("chrono-Compatible Low-Level Date Algorithms"). */
+function civilFromDays(z: number): { year: number; month: number; day: number } {
+  z += 719_468;
+  const era = Math.floor(z / 146_097);
+  const doe = z - era * 146_097;
+  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36_524) - Math.floor(doe / 146_096)) / 365);
+  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
+  const mp = Math.floor((5 * doy + 2) / 153);
+  const day = doy - Math.floor((153 * mp + 2) / 5) + 1;
+  const month = mp < 10 ? mp + 3 : mp - 9;
+  return { year: yoe + era * 400 + (month <= 2 ? 1 : 0), month, day };
 }
 
 const pad = (n: number, width = 2) => String(n).padStart(width, "0");
