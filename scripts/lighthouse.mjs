@@ -4,7 +4,7 @@
 // seeded with the demo clinic) and its own build in .next-lighthouse (built once; set
 // LIGHTHOUSE_REBUILD=1 to build again). Needs Chromium at /usr/bin/chromium.
 import { spawn } from "node:child_process";
-import { existsSync, readFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
 import {
@@ -102,6 +102,11 @@ for (const p of pages) {
       extraHeaders: p.signedIn ? { Cookie: cookie } : undefined,
     });
     const lhr = result.lhr;
+    // The full report of each page, for finding what holds the LCP or what a page ships.
+    if (process.env.LIGHTHOUSE_REPORTS) {
+      mkdirSync(process.env.LIGHTHOUSE_REPORTS, { recursive: true });
+      writeFileSync(path.join(process.env.LIGHTHOUSE_REPORTS, `${p.name.replace(/\W+/g, "_") || "root"}.json`), JSON.stringify(lhr));
+    }
     const script = lhr.audits["resource-summary"].details.items.find((i) => i.resourceType === "script");
     const figures = {
       performance: Math.round((lhr.categories.performance.score ?? 0) * 100),

@@ -7,7 +7,8 @@ import { requirePageUser } from "@/lib/auth/session";
 import { loadTimeline } from "@/lib/booking/context";
 import { clinicOf } from "@/lib/data/clinics";
 import { getProposal } from "@/lib/data/proposals";
-import { PlanEstimateForm } from "@/components/payments/plan-estimate-form";
+import { ClientMessages } from "@/components/i18n/client-messages";
+import { PlanEstimateDetails } from "@/components/payments/plan-estimate-details";
 import { listMaterials } from "@/lib/data/materials";
 import { planEstimateOf } from "@/lib/data/payments";
 import { patientShareFor } from "@/lib/payments/deposits";
@@ -77,14 +78,11 @@ export default async function ProposalPage({ params }: { params: Promise<{ id: s
         <h1 className="text-2xl font-bold first-letter:uppercase">{toothWords(view.tooth.fdi, locale)}</h1>
         {view.note ? <p className="mt-1 text-ink-soft" data-free-text>{t("proposal.dentistNote", { dentist: view.dentist.name ?? "", note: view.note })}</p> : null}
       </header>
-      <details className="card text-sm">
-        <summary className="cursor-pointer font-semibold">{t("payments.planSummary")}</summary>
-        <div className="mt-3">
-          <PlanEstimateForm proposalId={view.id} initial={estimate ? { coveragePercent: String(estimate.coveragePercent), deductibleRemaining: (estimate.deductibleRemainingCents / 100).toFixed(2), annualMaxRemaining: (estimate.annualMaxRemainingCents / 100).toFixed(2), preauthReference: estimate.preauthReference ?? "" } : {}} />
-          <p className="mt-2 text-xs text-ink-soft">{t("payments.planCaution")}</p>
-        </div>
-      </details>
-      <BookingFlow locale={locale} proposalId={view.id} currency={clinic.currency} depositNote={depositNote(clinic, t, locale)} timezone={clinic.timeZone} choices={choices} />
+      {/* Only the messages the booking flow and the plan form read reach the browser. */}
+      <ClientMessages namespaces={["booking", "modes", "slots", "payments.planForm"]}>
+        <PlanEstimateDetails summary={t("payments.planSummary")} caution={t("payments.planCaution")} proposalId={view.id} initial={estimate ? { coveragePercent: String(estimate.coveragePercent), deductibleRemaining: (estimate.deductibleRemainingCents / 100).toFixed(2), annualMaxRemaining: (estimate.annualMaxRemainingCents / 100).toFixed(2), preauthReference: estimate.preauthReference ?? "" } : {}} />
+        <BookingFlow locale={locale} proposalId={view.id} currency={clinic.currency} depositNote={depositNote(clinic, t, locale)} timezone={clinic.timeZone} choices={choices} />
+      </ClientMessages>
       <CautionsNote />
     </div>
   );
