@@ -3,6 +3,7 @@
 // answer is a redirect, with `?error=` on failure). With JavaScript the same fields are sent by
 // fetch, so the two-factor step keeps what was typed. The browser gets no form or schema library:
 // the server checks every field with the shared schema (lib/auth/schemas.ts).
+import { useRouter } from "next/navigation";
 import { useRef, useState } from "react";
 import { CODE_NEEDED, signInOutcome, type SignInOutcome } from "@/lib/auth/sign-in-errors";
 
@@ -15,6 +16,7 @@ export type SignInWords = {
 type Props = { csrfToken: string; words: SignInWords; outcome: SignInOutcome | null };
 
 export function SignInForm({ csrfToken, words, outcome }: Props) {
+  const router = useRouter();
   // Without JavaScript a code request comes back as a new page, so e-mail and password are typed again.
   const codeAgain = outcome === "codeNeeded" || outcome === "codeFailed";
   const [message, setMessage] = useState<string | null>(outcome === "codeNeeded" ? words.codeAgain : outcome ? words.outcomes[outcome] : null);
@@ -46,7 +48,8 @@ export function SignInForm({ csrfToken, words, outcome }: Props) {
       const { url } = (await res.json()) as { url?: string };
       const error = url ? new URL(url, window.location.href).searchParams.get("error") : "CredentialsSignin";
       if (!error && res.ok) {
-        window.location.assign("/portal");
+        router.replace("/portal");
+        router.refresh();
         return;
       }
       if (error === CODE_NEEDED) {
