@@ -6,9 +6,10 @@ import { signOutEverywhereAndLeave } from "./account/sign-out-everywhere-action"
 
 export async function SignOutButton() {
   const t = await getTranslations("common");
+  const token = await csrfToken();
   return (
     <form method="post" action="/api/auth/signout">
-      <input type="hidden" name="csrfToken" value={await csrfToken()} />
+      <input type="hidden" name="csrfToken" value={token} />
       <input type="hidden" name="callbackUrl" value="/" />
       <button type="submit" className="btn-quiet min-h-10 px-3 text-sm">{t("signOut")}</button>
     </form>
