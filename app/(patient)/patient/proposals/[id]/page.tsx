@@ -8,7 +8,7 @@ import { requirePageUser } from "@/lib/auth/session";
 import { loadTimeline } from "@/lib/booking/context";
 import { clinicOf } from "@/lib/data/clinics";
 import { getProposal } from "@/lib/data/proposals";
-import { pickMessages } from "@/components/i18n/client-messages";
+import { pickMessages } from "@/components/i18n/pick-messages";
 import { PlanEstimateDetails } from "@/components/payments/plan-estimate-details";
 import { listMaterials } from "@/lib/data/materials";
 import { planEstimateOf } from "@/lib/data/payments";

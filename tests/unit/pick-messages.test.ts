@@ -1,6 +1,6 @@
 // Picking the messages a page's client components read: whole namespaces or one part of one.
 import { describe, expect, it } from "vitest";
-import { pickMessages } from "@/components/i18n/client-messages";
+import { pickMessages } from "@/components/i18n/pick-messages";
 
 const ALL = {
   booking: { title: "Book", pick: "Pick {thing}" },
