@@ -2,9 +2,11 @@
 // home and a proposal, signed in as the demo patient; prints each figure beside its budget in
 // tests/bench/lighthouse-budgets.json. Uses its own database (cuspal_lighthouse, migrated and
 // seeded with the demo clinic) and its own build in .next-lighthouse (built once; set
-// LIGHTHOUSE_REBUILD=1 to build again). Needs Chromium at /usr/bin/chromium.
+// LIGHTHOUSE_REBUILD=1 to build again). Needs Chromium at /usr/bin/chromium. Below the table it
+// splits each page's script into the framework's chunks and the app's own; LIGHTHOUSE_REPORTS=<dir>
+// keeps each page's full Lighthouse report there (LCP element, network requests).
 import { spawn } from "node:child_process";
-import { existsSync, readFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
 import {
@@ -90,6 +92,11 @@ for (const p of pages.filter((x) => x.signedIn)) {
   if (res.status !== 200 || new URL(res.url).pathname.startsWith("/sign-in")) fail(`${p.name} answered ${res.status} at ${res.url} with the patient's session.`);
 }
 
+// The chunks every App Router page loads whatever the app does (React, React DOM, Next's router
+// runtime): the build manifest's `rootMainFiles`. Their transfer is the floor of any page's script.
+const manifest = JSON.parse(readFileSync(path.join(root, env.NEXT_DIST_DIR, "build-manifest.json"), "utf8"));
+const frameworkChunks = new Set((manifest.rootMainFiles ?? []).map((f) => `/_next/${f}`));
+
 const { default: lighthouse } = await import("lighthouse");
 const chromeLauncher = await import("chrome-launcher");
 const rows = [];
@@ -102,6 +109,11 @@ for (const p of pages) {
       extraHeaders: p.signedIn ? { Cookie: cookie } : undefined,
     });
     const lhr = result.lhr;
+    // The full report of each page, for finding what holds the LCP or what a page ships.
+    if (process.env.LIGHTHOUSE_REPORTS) {
+      mkdirSync(process.env.LIGHTHOUSE_REPORTS, { recursive: true });
+      writeFileSync(path.join(process.env.LIGHTHOUSE_REPORTS, `${p.name.replace(/\W+/g, "_") || "root"}.json`), JSON.stringify(lhr));
+    }
     const script = lhr.audits["resource-summary"].details.items.find((i) => i.resourceType === "script");
     const figures = {
       performance: Math.round((lhr.categories.performance.score ?? 0) * 100),
@@ -113,7 +125,12 @@ for (const p of pages) {
     if (lhr.finalDisplayedUrl && !lhr.finalDisplayedUrl.startsWith(p.url)) {
       console.log(`  note: ${p.name} ended on ${lhr.finalDisplayedUrl}`);
     }
-    rows.push({ page: p.name, figures });
+    // Split the script bytes: the framework's own chunks (the same on every page) and the app's.
+    const scripts = lhr.audits["network-requests"].details.items.filter((i) => i.resourceType === "Script");
+    const isFramework = (url) => frameworkChunks.has(new URL(url).pathname);
+    const sum = (items) => items.reduce((n, i) => n + (i.transferSize ?? 0), 0) / 1024;
+    const split = { framework: sum(scripts.filter((i) => isFramework(i.url))), app: sum(scripts.filter((i) => !isFramework(i.url))) };
+    rows.push({ page: p.name, figures, split });
   } finally {
     await chrome.kill();
   }
@@ -141,5 +158,15 @@ for (const r of rows) {
     return `${fmt[k](r.figures[k])}${ok ? "" : "  over"}`.padEnd(26);
   });
   console.log([r.page.padEnd(10), ...cells].join(" | "));
+}
+console.log(`\nScript transferred, split: the framework's chunks (build-manifest.json rootMainFiles: ${frameworkChunks.size} files,`);
+console.log("the same on every App Router page) and this app's own chunks (its client components and their libraries).");
+console.log(["page".padEnd(10), "framework".padEnd(12), "app".padEnd(12), "total"].join(" | "));
+for (const r of rows) {
+  console.log([r.page.padEnd(10), `${r.split.framework.toFixed(1)} kB`.padEnd(12), `${r.split.app.toFixed(1)} kB`.padEnd(12), `${(r.split.framework + r.split.app).toFixed(1)} kB`].join(" | "));
+}
+const floor = Math.min(...rows.map((r) => r.split.framework));
+if (floor > budgets.scriptKb.max) {
+  console.log(`The framework alone transfers ${floor.toFixed(1)} kB, over the ${budgets.scriptKb.max} kB script budget before any app code: no page can meet it with this Next.js and React.`);
 }
 process.exit(over ? 1 : 0);

@@ -2,8 +2,11 @@
 // X-Forwarded-For when the request lacks it, so a client could name any address; here the
 // socket's address is always appended as the last hop, and lib/server/client-ip.ts walks the
 // header from the right, believing earlier hops only from the proxies listed in TRUSTED_PROXIES.
+// Static scripts and styles go out brotli-compressed when the browser takes it (static-brotli.mjs).
 import { createServer } from "node:http";
+import path from "node:path";
 import next from "next";
+import { serveStaticBrotli } from "./static-brotli.mjs";
 
 const port = Number(process.env.PORT ?? 3000);
 const args = process.argv.slice(2);
@@ -18,6 +21,7 @@ const listenHost = flag("-H");
 const app = next({ dev: false, hostname: listenHost ?? "localhost", port: listenPort });
 await app.prepare();
 const handle = app.getRequestHandler();
+const staticDir = path.resolve(process.env.NEXT_DIST_DIR || ".next", "static");
 
 const server = createServer((req, res) => {
   const peer = req.socket.remoteAddress ?? "unknown";
@@ -26,6 +30,7 @@ const server = createServer((req, res) => {
   req.headers["x-forwarded-for"] = chain ? `${chain}, ${peer}` : peer;
   // X-Real-IP is not ours to read; drop it so nothing downstream mistakes it for the client.
   delete req.headers["x-real-ip"];
+  if (serveStaticBrotli(req, res, staticDir)) return;
   handle(req, res);
 }).listen(listenPort, listenHost, () => {
   console.log(`Cuspal is listening on port ${listenPort}`);

@@ -1,3 +1,4 @@
+import { ClientMessages } from "@/components/i18n/client-messages";
 import { SiteHeader } from "@/components/site-header";
 import { requirePageUser, STAFF_ROLES } from "@/lib/auth/session";
 import { clinicNav } from "./clinic-nav";
@@ -9,7 +10,7 @@ export default async function ClinicLayout({ children }: { children: React.React
   return (
     <>
       <SiteHeader user={user} nav={clinicNav(user.role)} />
-      <main id="main" className="mx-auto max-w-page px-gutter py-6">{children}</main>
+      <main id="main" className="mx-auto max-w-page px-gutter py-6"><ClientMessages>{children}</ClientMessages></main>
     </>
   );
 }

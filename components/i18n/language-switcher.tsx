@@ -1,36 +1,11 @@
-"use client";
 // Two buttons, each named in its own language, so a reader finds theirs whatever is shown now.
-import { useLocale, useTranslations } from "next-intl";
-import { useRouter } from "next/navigation";
-import { useState, useTransition } from "react";
-import { LOCALE_NAMES, LOCALES, type Locale } from "@/lib/i18n/locale";
-import { setLanguageAction } from "./language-action";
+// A server component: the words come from here, only the small button group runs in the browser.
+import { getLocale, getTranslations } from "next-intl/server";
+import { isLocale } from "@/lib/i18n/locale";
+import { LanguageButtons } from "./language-buttons";
 
-export function LanguageSwitcher() {
-  const t = useTranslations("language");
-  const current = useLocale();
-  const router = useRouter();
-  const [pending, start] = useTransition();
-  const [failed, setFailed] = useState(false);
-
-  function choose(language: Locale) {
-    setFailed(false);
-    start(async () => {
-      const result = await setLanguageAction({ language });
-      if (result.ok) router.refresh();
-      else setFailed(true);
-    });
-  }
-
-  return (
-    <div role="group" aria-label={t("label")} className="flex items-center gap-1" data-testid="language-switcher">
-      {LOCALES.map((l) => (
-        <button key={l} type="button" lang={l} aria-pressed={l === current} disabled={pending} onClick={() => choose(l)}
-          className={`min-h-10 rounded-md px-2 text-sm font-semibold ${l === current ? "bg-harbour-50 text-harbour-800 ring-1 ring-harbour-600" : "text-ink-soft hover:bg-paper-deep"}`}>
-          {LOCALE_NAMES[l]}
-        </button>
-      ))}
-      {failed ? <span role="alert" className="text-sm text-clay-700">{t("failed")}</span> : null}
-    </div>
-  );
+export async function LanguageSwitcher() {
+  const t = await getTranslations("language");
+  const current = await getLocale();
+  return <LanguageButtons current={isLocale(current) ? current : "en"} label={t("label")} failed={t("failed")} />;
 }

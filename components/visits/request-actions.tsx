@@ -3,12 +3,14 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { SlotPicker, type SlotOption } from "./slot-picker";
+import { useSlotWords } from "./slot-words";
 
 type Props = { visitId: string; proposalId: string; materialId: string; mode: string; timezone: string; patientName: string };
 
 /** Reception's actions on a requested visit: confirm, decline with a reason, or move. */
 export function RequestActions({ visitId, proposalId, materialId, mode, timezone, patientName }: Props) {
   const router = useRouter();
+  const slotText = useSlotWords(timezone);
   const [panel, setPanel] = useState<"none" | "decline" | "move">("none");
   const [reason, setReason] = useState("");
   const [slot, setSlot] = useState<SlotOption | null>(null);
@@ -43,7 +45,7 @@ export function RequestActions({ visitId, proposalId, materialId, mode, timezone
       ) : null}
       {panel === "move" ? (
         <div className="space-y-2">
-          <SlotPicker proposalId={proposalId} materialId={materialId} mode={mode} timezone={timezone} selected={slot} onSelect={setSlot} endpoint={`/api/appointments/${visitId}/availability`} />
+          <SlotPicker proposalId={proposalId} materialId={materialId} mode={mode} words={slotText.words} locale={slotText.locale} selected={slot} onSelect={setSlot} endpoint={`/api/appointments/${visitId}/availability`} />
           <button type="button" className="btn-primary min-h-10 px-3 text-sm" disabled={!slot || busy} onClick={() => post("move", { start: slot!.start })}>{slot ? `Move to ${slot.label}` : "Pick a time"}</button>
         </div>
       ) : null}

@@ -1,18 +1,24 @@
 "use client";
 
-import { useLocale, useTranslations } from "next-intl";
 import { useEffect, useState } from "react";
 import { formatDay } from "@/lib/i18n/format";
-import { isLocale, type Locale } from "@/lib/i18n/locale";
+import type { Locale } from "@/lib/i18n/locale";
 
 export type SlotOption = { start: string; end: string; label: string };
+
+/**
+ * The picker's words, made by whoever renders it (`slotWords`, on the server or from a provider), so
+ * the picker itself needs no message catalogue. `times` holds the literal `{day}`, filled in here.
+ */
+export type SlotWords = { zoneNote: string; loading: string; error: string; none: string; days: string; times: string; later: string };
 
 type Props = {
   proposalId: string;
   materialId: string;
   mode: string;
-  timezone: string;
   selected: SlotOption | null;
+  words: SlotWords;
+  locale: Locale;
   onSelect: (slot: SlotOption) => void;
   /** Where to fetch slots from; defaults to the proposal's availability API. */
   endpoint?: string;
@@ -32,10 +38,7 @@ function nextDay(date: string) {
 
 /** Days with free start times, then the times of the chosen day. Times are shown as the
  *  clinic's wall clock (the API gives them with the clinic's offset). */
-export function SlotPicker({ proposalId, materialId, mode, timezone, selected, onSelect, endpoint }: Props) {
-  const t = useTranslations("slots");
-  const current = useLocale();
-  const locale: Locale = isLocale(current) ? current : "en";
+export function SlotPicker({ proposalId, materialId, mode, selected, onSelect, endpoint, words, locale }: Props) {
   const [slots, setSlots] = useState<{ start: string; end: string }[]>([]);
   const [from, setFrom] = useState<string | null>(null);
   const [lastDay, setLastDay] = useState<string | null>(null);
@@ -70,12 +73,12 @@ export function SlotPicker({ proposalId, materialId, mode, timezone, selected, o
 
   return (
     <div className="space-y-3" data-testid="slot-picker">
-      <p className="text-sm text-ink-soft">{t("zoneNote", { zone: timezone.replace("_", " ") })}</p>
-      {state === "loading" && slots.length === 0 ? <p aria-live="polite">{t("loading")}</p> : null}
-      {state === "error" ? <p role="alert" className="text-clay-700">{t("error")}</p> : null}
-      {state === "ready" && slots.length === 0 ? <p>{t("none")}</p> : null}
+      <p className="text-sm text-ink-soft">{words.zoneNote}</p>
+      {state === "loading" && slots.length === 0 ? <p aria-live="polite">{words.loading}</p> : null}
+      {state === "error" ? <p role="alert" className="text-clay-700">{words.error}</p> : null}
+      {state === "ready" && slots.length === 0 ? <p>{words.none}</p> : null}
       {days.length ? (
-        <div role="group" aria-label={t("days")} className="-mx-1 flex gap-2 overflow-x-auto px-1 pb-1">
+        <div role="group" aria-label={words.days} className="-mx-1 flex gap-2 overflow-x-auto px-1 pb-1">
           {days.map((d) => (
             <button key={d} type="button" aria-pressed={d === activeDay} onClick={() => setDay(d)}
               className={`btn shrink-0 border ${d === activeDay ? "border-harbour-600 bg-harbour-600 text-white" : "border-line bg-white text-ink"}`}>
@@ -85,7 +88,7 @@ export function SlotPicker({ proposalId, materialId, mode, timezone, selected, o
         </div>
       ) : null}
       {times.length ? (
-        <div role="group" aria-label={t("times", { day: activeDay ? dayLabel(activeDay, locale) : "" })} className="grid grid-cols-3 gap-2 sm:grid-cols-5">
+        <div role="group" aria-label={words.times.replace("{day}", activeDay ? dayLabel(activeDay, locale) : "")} className="grid grid-cols-3 gap-2 sm:grid-cols-5">
           {times.map((s) => {
             const label = `${dayLabel(s.start.slice(0, 10), locale)}, ${s.start.slice(11, 16)}`;
             const isSelected = selected?.start === s.start;
@@ -99,7 +102,7 @@ export function SlotPicker({ proposalId, materialId, mode, timezone, selected, o
         </div>
       ) : null}
       {state === "ready" && lastDay ? (
-        <button type="button" className="btn-quiet" onClick={() => { setState("loading"); setFrom(nextDay(lastDay)); }}>{t("later")}</button>
+        <button type="button" className="btn-quiet" onClick={() => { setState("loading"); setFrom(nextDay(lastDay)); }}>{words.later}</button>
       ) : null}
     </div>
   );

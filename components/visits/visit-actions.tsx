@@ -4,6 +4,7 @@ import { useTranslations } from "next-intl";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { SlotPicker, type SlotOption } from "./slot-picker";
+import { useSlotWords } from "./slot-words";
 
 type Props = { visitId: string; proposalId: string; materialId: string; mode: string; timezone: string; canChange: boolean; cutoffNote: string; depositNote?: string | null };
 
@@ -12,6 +13,7 @@ export function VisitActions({ visitId, proposalId, materialId, mode, timezone, 
   const router = useRouter();
   const t = useTranslations("visit");
   const tc = useTranslations("common");
+  const slotText = useSlotWords(timezone);
   const [panel, setPanel] = useState<"none" | "move" | "cancel">("none");
   const [slot, setSlot] = useState<SlotOption | null>(null);
   const [reason, setReason] = useState("");
@@ -44,7 +46,7 @@ export function VisitActions({ visitId, proposalId, materialId, mode, timezone, 
       {message ? <p role="alert" className="rounded-lg bg-clay-50 p-3 text-sm font-medium text-clay-700">{message}</p> : null}
       {panel === "move" ? (
         <div className="card space-y-3">
-          <SlotPicker proposalId={proposalId} materialId={materialId} mode={mode} timezone={timezone} selected={slot} onSelect={setSlot} endpoint={`/api/appointments/${visitId}/availability`} />
+          <SlotPicker proposalId={proposalId} materialId={materialId} mode={mode} words={slotText.words} locale={slotText.locale} selected={slot} onSelect={setSlot} endpoint={`/api/appointments/${visitId}/availability`} />
           <button type="button" className="btn-primary" disabled={!slot || busy} onClick={() => post("move", { start: slot!.start })}>
             {slot ? t("moveTo", { slot: slot.label }) : t("pickNew")}
           </button>

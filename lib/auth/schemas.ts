@@ -13,11 +13,7 @@ export const signInLinkSchema = z.object({
   email: z.string().trim().toLowerCase().email({ message: "Enter your e-mail address, like name@example.com." }),
 });
 
-export const SIGN_IN_FAILED = "That e-mail and password do not match an account. Check both and try again.";
-export const SIGN_IN_LOCKED = "Too many sign-in attempts. Wait a little, then try again, or use a sign-in link.";
-/** Returned (as the error) when the password was right and a two-factor code is needed next. */
-export const CODE_NEEDED = "two-factor-code-needed";
-export const CODE_FAILED = "That code did not work. Enter the current code from your authenticator app, or one of your recovery codes.";
+export { CODE_FAILED, CODE_NEEDED, SIGN_IN_FAILED, SIGN_IN_LOCKED } from "./sign-in-errors";
 
 /** The enrolment form: the first code the app shows, proving it holds the secret. */
 export const enrolSchema = z.object({

@@ -1,30 +1,37 @@
 "use client";
+// A plain HTML form posted to next-auth's e-mail sign-in: it works without JavaScript. With
+// JavaScript the address is checked first, so a mistyped one gets its message beside the field.
+import { useState } from "react";
 
-import { zodResolver } from "@hookform/resolvers/zod";
-import { signIn } from "next-auth/react";
-import { useTranslations } from "next-intl";
-import { useForm } from "react-hook-form";
-import { z } from "zod";
-import { signInLinkSchema } from "@/lib/auth/schemas";
+export type SignInLinkWords = { linkEmail: string; linkSubmit: string; linkSending: string; emailInvalid: string };
 
-type LinkInput = z.infer<typeof signInLinkSchema>;
+export function SignInLinkForm({ csrfToken, words, invalid }: { csrfToken: string; words: SignInLinkWords; invalid: boolean }) {
+  const [error, setError] = useState(invalid);
+  const [submitting, setSubmitting] = useState(false);
 
-export function SignInLinkForm() {
-  const t = useTranslations("signIn");
-  const { register, handleSubmit, formState } = useForm<LinkInput>({ resolver: zodResolver(signInLinkSchema) });
-  const { errors, isSubmitting } = formState;
-  const onSubmit = handleSubmit(async ({ email }) => {
-    await signIn("email", { email, callbackUrl: "/patient" });
-  });
+  function onSubmit(event: React.FormEvent<HTMLFormElement>) {
+    const email = event.currentTarget.elements.namedItem("email") as HTMLInputElement;
+    const bad = !email.value.trim() || !email.validity.valid;
+    setError(bad);
+    if (bad) {
+      event.preventDefault();
+      email.focus();
+      return;
+    }
+    setSubmitting(true);
+  }
+
   return (
-    <form onSubmit={onSubmit} noValidate className="mt-3 space-y-3">
+    <form method="post" action="/api/auth/signin/email" onSubmit={onSubmit} noValidate className="mt-3 space-y-3">
+      <input type="hidden" name="csrfToken" value={csrfToken} />
+      <input type="hidden" name="callbackUrl" value="/patient" />
       <div>
-        <label htmlFor="link-email" className="field-label">{t("linkEmail")}</label>
-        <input id="link-email" type="email" autoComplete="email" className="field-input" aria-invalid={!!errors.email} aria-describedby={errors.email ? "link-email-error" : undefined} {...register("email")} />
-        {errors.email ? <p id="link-email-error" className="field-error">{t("emailInvalid")}</p> : null}
+        <label htmlFor="link-email" className="field-label">{words.linkEmail}</label>
+        <input id="link-email" name="email" type="email" required autoComplete="email" className="field-input" aria-invalid={error} aria-describedby={error ? "link-email-error" : undefined} />
+        {error ? <p id="link-email-error" className="field-error">{words.emailInvalid}</p> : null}
       </div>
-      <button type="submit" className="btn-quiet w-full" disabled={isSubmitting}>
-        {isSubmitting ? t("linkSending") : t("linkSubmit")}
+      <button type="submit" className="btn-quiet w-full" disabled={submitting}>
+        {submitting ? words.linkSending : words.linkSubmit}
       </button>
     </form>
   );
