@@ -63,9 +63,14 @@ test("API answers are never cached, the live check needs no database, and the AP
 test("mutating API requests from another site, or not as JSON, are refused", async ({ page }) => {
   await signIn(page, "dentist@cuspal.test");
   const body = JSON.stringify({ patientId: "6d0c1a2b-0000-4000-8000-000000000000", tooth: 36, fee: 1, options: [] });
-  const foreign = await page.request.post("/api/proposals", { data: body, headers: { origin: "https://attacker.example", "content-type": "application/json" } });
+  const foreign = await page.request.post("/api/proposals", { data: body, headers: { origin: "https://attacker.example", "content-type": "application/json", "accept-encoding": "gzip" } });
   expect(foreign.status()).toBe(403);
   const plain = await page.request.post("/api/proposals", { data: body, headers: { "content-type": "text/plain" } });
+  // Answers to API writes are small and go out uncompressed (scripts/api-write-encoding.mjs);
+  // reads are compressed as before.
+  expect(foreign.headers()["content-encoding"]).toBeUndefined();
+  const doc = await page.request.get("/api/openapi.json", { headers: { "accept-encoding": "gzip" } });
+  expect(doc.headers()["content-encoding"]).toBe("gzip");
   expect(plain.status()).toBe(415);
   // The app's own pages still post: a same-origin JSON request gets past the checks to validation.
   const own = await page.request.post("/api/proposals", { data: body, headers: { "content-type": "application/json" } });
