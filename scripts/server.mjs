@@ -3,11 +3,11 @@
 // socket's address is always appended as the last hop, and lib/server/client-ip.ts walks the
 // header from the right, believing earlier hops only from the proxies listed in TRUSTED_PROXIES.
 // Static scripts and styles go out brotli-compressed when the browser takes it (static-brotli.mjs);
-// answers to API writes go out uncompressed (api-write-encoding.mjs).
+// API answers are compressed whole, here, not by Next (api-answer-encoding.mjs).
 import { createServer } from "node:http";
 import path from "node:path";
 import next from "next";
-import { plainAnswerForApiWrites } from "./api-write-encoding.mjs";
+import { encodeApiAnswers } from "./api-answer-encoding.mjs";
 import { serveStaticBrotli } from "./static-brotli.mjs";
 
 const port = Number(process.env.PORT ?? 3000);
@@ -33,7 +33,7 @@ const server = createServer((req, res) => {
   // X-Real-IP is not ours to read; drop it so nothing downstream mistakes it for the client.
   delete req.headers["x-real-ip"];
   if (serveStaticBrotli(req, res, staticDir)) return;
-  plainAnswerForApiWrites(req);
+  encodeApiAnswers(req, res);
   handle(req, res);
 }).listen(listenPort, listenHost, () => {
   console.log(`Cuspal is listening on port ${listenPort}`);

@@ -66,8 +66,7 @@ test("mutating API requests from another site, or not as JSON, are refused", asy
   const foreign = await page.request.post("/api/proposals", { data: body, headers: { origin: "https://attacker.example", "content-type": "application/json", "accept-encoding": "gzip" } });
   expect(foreign.status()).toBe(403);
   const plain = await page.request.post("/api/proposals", { data: body, headers: { "content-type": "text/plain" } });
-  // Answers to API writes are small and go out uncompressed (scripts/api-write-encoding.mjs);
-  // reads are compressed as before.
+  // API answers are compressed whole by the server, and only from 1 kB (scripts/api-answer-encoding.mjs).
   expect(foreign.headers()["content-encoding"]).toBeUndefined();
   const doc = await page.request.get("/api/openapi.json", { headers: { "accept-encoding": "gzip" } });
   expect(doc.headers()["content-encoding"]).toBe("gzip");
