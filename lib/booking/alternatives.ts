@@ -3,6 +3,7 @@
 // it in PostgreSQL for a few seconds, and the others wait for the lock and read it. Alternatives
 // are suggestions: the booking itself stays guarded by the reservations' exclusion constraint.
 import { QueryTypes, type Transaction } from "sequelize";
+import { selectRows } from "@/db/select-rows";
 import { sequelize } from "@/db/sequelize";
 
 /** How long a computed answer is reused. */
@@ -22,9 +23,10 @@ export async function sharedAlternatives(key: string, compute: (transaction: Tra
 
 async function freshAnswer(key: string, transaction?: Transaction): Promise<Alternative[] | null> {
   // clock_timestamp, not now(): a waiter's transaction began before the answer it is about to read.
-  const [fresh] = await sequelize.query<{ alternatives: Alternative[] }>(
-    `SELECT alternatives FROM booking_alternatives WHERE key = :key AND computed_at > clock_timestamp() - make_interval(secs => :fresh)`,
-    { replacements: { key, fresh: FRESH_SECONDS }, type: QueryTypes.SELECT, transaction },
+  const [fresh] = await selectRows<{ alternatives: Alternative[] }>(
+    `SELECT alternatives FROM booking_alternatives WHERE key = $1 AND computed_at > clock_timestamp() - make_interval(secs => $2)`,
+    [key, FRESH_SECONDS],
+    transaction,
   );
   return fresh?.alternatives ?? null;
 }

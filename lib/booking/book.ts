@@ -92,7 +92,7 @@ const slotTaken = (alternatives: Alternative[]) =>
  * an hour, and each turn lasts milliseconds, so the wait is short.
  */
 async function takeScheduleTurn(clinicId: string, transaction: Transaction) {
-  await sequelize.query(`SELECT pg_advisory_xact_lock(hashtextextended(:key, 0))`, { replacements: { key: `schedule ${clinicId}` }, transaction });
+  await selectRows(`SELECT pg_advisory_xact_lock(hashtextextended($1, 0))`, [`schedule ${clinicId}`], transaction);
 }
 
 // Lost races between concurrent bookings: an overlapping reservation (23P01), or PostgreSQL
