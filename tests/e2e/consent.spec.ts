@@ -3,8 +3,9 @@
 // tablet; the sealed PDF reads back with pdfjs-dist; the clinic's check spots a changed byte; and
 // the patient's copy arrives in the mail catcher (the worker, which `npm test` starts, sends it).
 import { createHash } from "node:crypto";
-import { expect, test, type Page } from "@playwright/test";
-import { expectNoAxeViolations, signIn, query } from "./support";
+import { expect, test } from "@playwright/test";
+import { pdfText } from "../support/pdf-text";
+import { drawSignature, expectNoAxeViolations, signIn, query } from "./support";
 
 const catcher = process.env.MAIL_CATCHER_URL;
 
@@ -18,32 +19,6 @@ async function zoeVisit(): Promise<string> {
   );
   expect(row, "the demo patient's upcoming visit").toBeTruthy();
   return row.id;
-}
-
-async function pdfText(bytes: Buffer): Promise<string> {
-  const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
-  const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes), isEvalSupported: false }).promise;
-  let text = "";
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent();
-    text += content.items.map((item) => ("str" in item ? item.str + (item.hasEOL ? "\n" : " ") : "")).join("") + "\n";
-  }
-  await doc.destroy();
-  return text;
-}
-
-/** Draws a signature-like wave across the canvas with the mouse (pointer events, as a finger would). */
-async function drawSignature(page: Page) {
-  const box = (await page.getByTestId("signature-canvas").boundingBox())!;
-  const y0 = box.y + box.height * 0.55;
-  await page.mouse.move(box.x + box.width * 0.1, y0);
-  await page.mouse.down();
-  for (let i = 1; i <= 40; i++) {
-    const x = box.x + box.width * (0.1 + (0.8 * i) / 40);
-    const y = y0 + Math.sin(i / 3) * box.height * 0.3;
-    await page.mouse.move(x, y, { steps: 2 });
-  }
-  await page.mouse.up();
 }
 
 test.describe.serial("informed consent", () => {

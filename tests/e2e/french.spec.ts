@@ -4,7 +4,8 @@
 // mail catcher is in French. The patient is switched back to English at the end.
 import { expect, test, type BrowserContext, type Page } from "@playwright/test";
 import { jpegWithGps } from "../support/sample-files";
-import { DEMO_PASSWORD, query, signIn } from "./support";
+import { pdfText } from "../support/pdf-text";
+import { DEMO_PASSWORD, drawSignature, query, signIn } from "./support";
 
 const catcher = process.env.MAIL_CATCHER_URL;
 
@@ -25,27 +26,6 @@ function englishWordsIn(text: string, more: string[] = []): string[] {
 
 // The English words of the details and documents screens ([C] our own list, no source).
 const DETAILS_AND_DOCUMENTS_WORDS = ["My details", "Mobile phone", "E-mail", "Save", "Download", "records", "Upload", "Take a photo", "Choose a file", "Title", "Added by", "Sent so far", "Insurance card", "No file chosen", "Account"];
-
-async function pdfText(bytes: Buffer): Promise<string> {
-  const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
-  const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes), isEvalSupported: false }).promise;
-  let text = "";
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent();
-    text += content.items.map((item) => ("str" in item ? item.str + (item.hasEOL ? "\n" : " ") : "")).join("") + "\n";
-  }
-  await doc.destroy();
-  return text;
-}
-
-async function drawSignature(page: Page) {
-  const box = (await page.getByTestId("signature-canvas").boundingBox())!;
-  const y0 = box.y + box.height * 0.55;
-  await page.mouse.move(box.x + box.width * 0.1, y0);
-  await page.mouse.down();
-  for (let i = 1; i <= 40; i++) await page.mouse.move(box.x + box.width * (0.1 + (0.8 * i) / 40), y0 + Math.sin(i / 3) * box.height * 0.3, { steps: 2 });
-  await page.mouse.up();
-}
 
 test.use({ locale: "fr-CA" });
 

@@ -1,4 +1,4 @@
-// Shared steps for browser tests: signing in as a demo account and checking accessibility.
+// Shared steps for browser tests: signing in as a demo account, checking accessibility, signing.
 import AxeBuilder from "@axe-core/playwright";
 import { expect, type Page } from "@playwright/test";
 import pg from "pg";
@@ -30,4 +30,18 @@ export async function query<T>(sql: string, params: unknown[] = []): Promise<T[]
   } finally {
     await client.end();
   }
+}
+
+/** Draws a signature-like wave across the consent's signature canvas with the mouse (pointer events, as a finger would). */
+export async function drawSignature(page: Page) {
+  const box = (await page.getByTestId("signature-canvas").boundingBox())!;
+  const y0 = box.y + box.height * 0.55;
+  await page.mouse.move(box.x + box.width * 0.1, y0);
+  await page.mouse.down();
+  for (let i = 1; i <= 40; i++) {
+    const x = box.x + box.width * (0.1 + (0.8 * i) / 40);
+    const y = y0 + Math.sin(i / 3) * box.height * 0.3;
+    await page.mouse.move(x, y, { steps: 2 });
+  }
+  await page.mouse.up();
 }

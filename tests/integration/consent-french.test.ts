@@ -10,20 +10,13 @@ import { QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-q
 import { SECTION_KEYS } from "@/lib/domain/consent-text";
 import { composeMail, loadMessage } from "@/lib/mail/compose";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { pdfPages } from "../support/pdf-text";
 import { sessionOf } from "../support/session";
 
 const UA = "ConsentTestFr/1.0";
 
 async function pdfText(bytes: Buffer): Promise<string> {
-  const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
-  const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false }).promise;
-  let all = "";
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent();
-    all += content.items.map((item) => ("str" in item ? item.str + (item.hasEOL ? "\n" : " ") : "")).join("");
-  }
-  await doc.destroy();
-  return all.replace(/\s+/g, " ");
+  return (await pdfPages(bytes)).join("").replace(/\s+/g, " ");
 }
 
 let t: TestClinic;

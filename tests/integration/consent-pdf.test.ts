@@ -18,6 +18,7 @@ import { openConsentForPatient, reviewConsent, signConsent } from "@/lib/data/co
 import { QUESTION_KEYS, type QuestionnaireAnswers } from "@/lib/domain/consent-questionnaire";
 import { SECTION_KEYS } from "@/lib/domain/consent-text";
 import { createTestClinic, createTestPatient, createTestProposal, type TestClinic } from "../support/fixtures";
+import { pdfPages } from "../support/pdf-text";
 import { sessionOf } from "../support/session";
 import { certificateFromP12, opensslPrint, opensslVerify, pdfsig } from "../support/seal-validators";
 
@@ -77,14 +78,7 @@ beforeAll(async () => {
 });
 
 async function pdfText(bytes: Buffer): Promise<{ pages: string[]; all: string }> {
-  const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
-  const doc = await pdfjs.getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false }).promise;
-  const pages: string[] = [];
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent();
-    pages.push(content.items.map((item) => ("str" in item ? item.str + (item.hasEOL ? "\n" : " ") : "")).join(""));
-  }
-  await doc.destroy();
+  const pages = await pdfPages(bytes);
   return { pages, all: pages.join("\n") };
 }
 
