@@ -7,6 +7,7 @@
 // memory), and gzips it in one call when it is 1 kB or more. Other answers (PDFs, ZIP files,
 // uploads' downloads) stream through untouched.
 import { gzipSync } from "node:zlib";
+import { codingWeights } from "./accept-encoding.mjs";
 
 const JSON_TYPE = /^application\/(?:[\w.+-]+\+)?json\b/i;
 /** Below this, gzip saves less than its own header and the work. */
@@ -15,16 +16,8 @@ export const COMPRESS_FROM_BYTES = 1024;
 /** Whether an Accept-Encoding header lets us answer with gzip (RFC 9110 §12.5.3: q=0 refuses; a
  *  coding's own entry outranks `*`). */
 export function acceptsGzip(header) {
-  let gzip;
-  let any;
-  for (const part of String(header ?? "").split(",")) {
-    const [coding, ...params] = part.split(";").map((s) => s.trim().toLowerCase());
-    const q = params.find((p) => p.startsWith("q="));
-    const weight = q === undefined ? 1 : Number(q.slice(2)) || 0;
-    if (coding === "gzip" || coding === "x-gzip") gzip = weight;
-    else if (coding === "*") any = weight;
-  }
-  return (gzip ?? any ?? 0) > 0;
+  const weights = codingWeights(header);
+  return (weights.get("gzip") ?? weights.get("x-gzip") ?? weights.get("*") ?? 0) > 0;
 }
 
 /** Sets up `res` so that an /api/ answer is encoded as described above; other requests are untouched. */

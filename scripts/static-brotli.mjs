@@ -5,18 +5,14 @@
 import { existsSync, readFileSync, renameSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { brotliCompressSync, constants } from "node:zlib";
+import { codingWeights } from "./accept-encoding.mjs";
 
 const TYPES = { ".js": "application/javascript; charset=utf-8", ".css": "text/css; charset=utf-8" };
 const PREFIX = "/_next/static/";
 
 /** Whether an Accept-Encoding header takes `br` (RFC 9110 §12.5.3: listed, and not with q=0). */
 export function acceptsBrotli(header) {
-  return String(header ?? "").split(",").some((part) => {
-    const [coding, ...params] = part.split(";").map((s) => s.trim().toLowerCase());
-    if (coding !== "br") return false;
-    const q = params.find((p) => p.startsWith("q="));
-    return q === undefined || Number(q.slice(2)) > 0;
-  });
+  return (codingWeights(header).get("br") ?? 0) > 0;
 }
 
 function compressed(file) {

@@ -1,6 +1,7 @@
 // The nearest free times offered after a lost booking race. Many requests lose the same race at
 // once; the first of them computes the answer under a transaction-scoped advisory lock and stores
-// it in PostgreSQL for a few seconds, and the others wait for the lock and read it. Alternatives
+// it in PostgreSQL for a few seconds; later ones read it with one plain query, and those that
+// arrived meanwhile wait for the lock and read it. Alternatives
 // are suggestions: the booking itself stays guarded by the reservations' exclusion constraint.
 import { QueryTypes, type Transaction } from "sequelize";
 import { selectRows } from "@/db/select-rows";

@@ -140,10 +140,13 @@ export async function run300(): Promise<Record<string, string | number>> {
     const start = free.slots[0].start;
     // A running instance has its booking route loaded: warm it (a refused request loads the code, as
     // the first availability requests above do) so the race measures bookings, not code loading.
-    for (let i = 0; i < 3; i++) {
-      const warm = await fetch(`http://localhost:${PORT}/api/appointments`, { method: "POST", headers: { cookie: racers[0].cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: racers[0].proposalId, materialId: feld.id, mode: "rapid", start: "2000-01-01T09:00:00Z" }) });
-      if (warm.status !== 400) throw new Error(`warm-up booking answered ${warm.status}, expected 400 (a past time)`);
-    }
+    const warmBookings = async (port: number, racer: (typeof racers)[number]) => {
+      for (let i = 0; i < 3; i++) {
+        const warm = await fetch(`http://localhost:${port}/api/appointments`, { method: "POST", headers: { cookie: racer.cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: racer.proposalId, materialId: feld.id, mode: "rapid", start: "2000-01-01T09:00:00Z" }) });
+        if (warm.status !== 400) throw new Error(`warm-up booking answered ${warm.status}, expected 400 (a past time)`);
+      }
+    };
+    await warmBookings(PORT, racers[0]);
     const race = async (who: typeof racers, ports: number[], at: string) => {
       const latencies: number[] = [];
       const statuses = await Promise.all(who.map(async (r, i) => {
@@ -168,11 +171,7 @@ export async function run300(): Promise<Record<string, string | number>> {
     try {
       const later = await (await fetch(`http://localhost:${PORT}/api/proposals/${racers[50].proposalId}/availability?materialId=${feld.id}&mode=rapid&from=${addDays(from, 1)}&days=60`, { headers: { cookie: racers[50].cookie } })).json();
       if (!later.slots?.length) throw new Error("No free slot left for the two-instance run.");
-      for (const port of [PORT, PORT + 1]) {
-        for (let i = 0; i < 3; i++) {
-          await (await fetch(`http://localhost:${port}/api/appointments`, { method: "POST", headers: { cookie: racers[50].cookie, "content-type": "application/json" }, body: JSON.stringify({ proposalId: racers[50].proposalId, materialId: feld.id, mode: "rapid", start: "2000-01-01T09:00:00Z" }) })).text();
-        }
-      }
+      for (const port of [PORT, PORT + 1]) await warmBookings(port, racers[50]);
       split = await race(racers.slice(50), [PORT, PORT + 1], later.slots[0].start);
     } finally {
       stopApp(second);

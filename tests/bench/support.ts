@@ -123,35 +123,36 @@ export async function throughput(url: string, init: RequestInit, callers: number
   return done / ((performance.now() - t0) / 1000);
 }
 
-/** CPU time (user + system, ms) used so far by the app server's process group: sampled before and
- *  after a load, the difference divided by the requests answered is the server's CPU per request. */
-export function serverCpuMs(child: ChildProcess): number {
-  let ticks = 0;
+/** The processes of the app server's process group, each with the fields of its /proc/<pid>/stat
+ *  after the command name (which may hold spaces): [0] is field 3, so [2] is the process group. */
+function groupProcesses(child: ChildProcess): { pid: number; fields: string[] }[] {
+  const found: { pid: number; fields: string[] }[] = [];
   for (const entry of readdirSync("/proc")) {
     if (!/^\d+$/.test(entry)) continue;
     try {
       const stat = readFileSync(`/proc/${entry}/stat`, "utf8");
       const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
-      if (Number(fields[2]) !== child.pid) continue;
-      // Fields 14 and 15 (utime, stime), in clock ticks: 100 per second on Linux (USER_HZ).
-      ticks += Number(fields[11]) + Number(fields[12]);
+      if (Number(fields[2]) === child.pid) found.push({ pid: Number(entry), fields });
     } catch { /* gone meanwhile */ }
   }
+  return found;
+}
+
+/** CPU time (user + system, ms) used so far by the app server's process group: sampled before and
+ *  after a load, the difference divided by the requests answered is the server's CPU per request. */
+export function serverCpuMs(child: ChildProcess): number {
+  // Fields 14 and 15 (utime, stime), in clock ticks: 100 per second on Linux (USER_HZ).
+  const ticks = groupProcesses(child).reduce((sum, p) => sum + Number(p.fields[11]) + Number(p.fields[12]), 0);
   return ticks * 10;
 }
 
 /** Resident memory (VmRSS, MB) of each process of the app server's process group, largest first. */
 export function serverMemory(child: ChildProcess): { pid: number; rssMb: number }[] {
   const out: { pid: number; rssMb: number }[] = [];
-  for (const entry of readdirSync("/proc")) {
-    if (!/^\d+$/.test(entry)) continue;
+  for (const { pid } of groupProcesses(child)) {
     try {
-      // Field 5 of /proc/<pid>/stat is the process group; the command name (field 2) may hold spaces.
-      const stat = readFileSync(`/proc/${entry}/stat`, "utf8");
-      const pgid = Number(stat.slice(stat.lastIndexOf(")") + 2).split(" ")[2]);
-      if (pgid !== child.pid) continue;
-      const rss = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${entry}/status`, "utf8"));
-      if (rss) out.push({ pid: Number(entry), rssMb: Number(rss[1]) / 1024 });
+      const rss = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, "utf8"));
+      if (rss) out.push({ pid, rssMb: Number(rss[1]) / 1024 });
     } catch { /* gone meanwhile */ }
   }
   return out.sort((a, b) => b.rssMb - a.rssMb);
